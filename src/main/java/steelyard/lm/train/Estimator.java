@@ -278,11 +278,12 @@ final class Estimator {
       int n = counts.size(k);
       boolean[] kk = keep[k];
       double[] b = k < order ? bow[k] : null;
+      int[] ids = new int[k];
       for (int e = 0; e < n; e++) {
         if (!kk[e]) continue;
         double lp = (k == 1 && e == bosEntry) ? START_LOG10 : Math.log10(prob[k][e]);
         double lb = b == null ? 0 : Math.log10(b[e]);
-        builder.add(counts.ngram(k, e), lp, lb);
+        builder.add(counts.ngram(k, e, ids), lp, lb);
       }
       if (k == 1 && unkEntry < 0) builder.add(new int[] {unk}, Math.log10(unseenUnigram()), 0);
     }

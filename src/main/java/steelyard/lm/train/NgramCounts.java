@@ -129,10 +129,14 @@ final class NgramCounts {
 
   /** The token ids of entry {@code e} of order k (1-based), oldest first. */
   int[] ngram(int k, int e) {
-    int[] out = new int[k];
+    return ngram(k, e, new int[k]);
+  }
+
+  /** Writes the token ids of entry {@code e} of order k into {@code out[0..k)} and returns it. */
+  int[] ngram(int k, int e, int[] out) {
     for (int j = k - 1; j >= 0; j--) {
-      out[j] = word[j].getInt(e);
-      e = parent[j].getInt(e);
+      out[j] = word[j].elements()[e];
+      e = parent[j].elements()[e];
     }
     return out;
   }
