@@ -272,21 +272,52 @@ final class Estimator {
 
   // ---- output ----
 
-  /** Adds every listed n-gram to {@code builder}, whose token ids must equal the counting ids. */
+  /**
+   * Adds every listed n-gram to {@code builder}, whose token ids must equal the counting ids. N-grams go in
+   * depth-first trie order (each unigram, then its listed extensions, …): with the trie numbering of
+   * {@link NgramCounts#freeze()} this reads every array front to back, and the builder's prefix look-ups of
+   * consecutive n-grams hit the same, already cached, table slots.
+   */
   void addTo(BackoffModel.Builder builder) {
-    for (int k = 1; k <= order; k++) {
-      int n = counts.size(k);
-      boolean[] kk = keep[k];
-      double[] b = k < order ? bow[k] : null;
-      int[] ids = new int[k];
-      for (int e = 0; e < n; e++) {
-        if (!kk[e]) continue;
-        double lp = (k == 1 && e == bosEntry) ? START_LOG10 : Math.log10(prob[k][e]);
-        double lb = b == null ? 0 : Math.log10(b[e]);
-        builder.add(counts.ngram(k, e, ids), lp, lb);
+    int[][] childStart = new int[order + 1][];
+    for (int k = 1; k < order; k++) childStart[k + 1] = counts.childStarts(k);
+    int[] ids = new int[order];
+    int[][] buffers = new int[order + 1][];
+    for (int k = 1; k <= order; k++) buffers[k] = new int[k];
+    int[] position = new int[order + 1];
+    int[] end = new int[order + 1];
+    int[] unigramWords = counts.words(1);
+    for (int u = 0; u < counts.size(1); u++) {
+      ids[0] = unigramWords[u];
+      add(builder, 1, u, ids, buffers[1]);
+      if (u == 0 && unkEntry < 0) builder.add(new int[] {unk}, Math.log10(unseenUnigram()), 0);
+      if (order == 1) continue;
+      int k = 2;
+      position[2] = childStart[2][u];
+      end[2] = childStart[2][u + 1];
+      while (k >= 2) {
+        if (position[k] == end[k]) {
+          k--;
+          continue;
+        }
+        int e = position[k]++;
+        if (!keep[k][e]) continue;
+        ids[k - 1] = counts.words(k)[e];
+        add(builder, k, e, ids, buffers[k]);
+        if (k < order) {
+          k++;
+          position[k] = childStart[k][e];
+          end[k] = childStart[k][e + 1];
+        }
       }
-      if (k == 1 && unkEntry < 0) builder.add(new int[] {unk}, Math.log10(unseenUnigram()), 0);
     }
+  }
+
+  private void add(BackoffModel.Builder builder, int k, int e, int[] ids, int[] buffer) {
+    System.arraycopy(ids, 0, buffer, 0, k);
+    double lp = (k == 1 && e == bosEntry) ? START_LOG10 : Math.log10(prob[k][e]);
+    double lb = k < order ? Math.log10(bow[k][e]) : 0;
+    builder.add(buffer, lp, lb);
   }
 
   /** The customary log10 "probability" of {@code <s>}, which is never predicted. */

@@ -8,12 +8,12 @@ import it.unimi.dsi.fastutil.longs.Long2IntOpenHashMap;
  *
  * <p>Storage per order k (array index k−1): parallel {@link IntArrayList}s {@code parent} (entry index of
  * the (k−1)-gram prefix, −1 for unigrams), {@code word} (token id) and {@code count}, plus a
- * {@link Long2IntOpenHashMap} from {@code (parent+1) << 32 | word} to the entry index. Cost: 12 bytes of
- * arrays plus about 16–21 bytes of hash table per distinct n-gram (up to twice that while a table grows);
- * nothing per corpus token, so memory is proportional to the number of distinct n-grams. Limits: at most
- * 2^31−1 entries per order and counts up to 2^31−1. After {@link #freeze()} the hash tables are dropped
- * and every entry gets a {@code suffix} link (4 bytes): the entry of the n-gram without its first token
- * (−1 for unigrams), which always exists because every substring of a counted n-gram is counted.
+ * {@link Long2IntOpenHashMap} from {@code (parent+1) << 32 | word} to the entry index, and {@code suffix}:
+ * the entry of the n-gram without its first token (−1 for unigrams), which always exists because every
+ * substring of a counted n-gram is counted. Cost: 16 bytes of arrays plus about 16–21 bytes of hash table
+ * per distinct n-gram (up to twice that while a table grows); nothing per corpus token, so memory is
+ * proportional to the number of distinct n-grams. Limits: at most 2^31−1 entries per order and counts up
+ * to 2^31−1. {@link #freeze()} drops the hash tables once counting is done.
  *
  * <p>Entries keep first-seen order, so the same corpus gives the same indices. Not thread-safe.
  */
@@ -22,6 +22,7 @@ final class NgramCounts {
   private final IntArrayList[] parent;
   private final IntArrayList[] word;
   private final IntArrayList[] count;
+  private final IntArrayList[] suffixLinks;
   private Long2IntOpenHashMap[] index;
   private int[][] suffix;
 
@@ -31,7 +32,9 @@ final class NgramCounts {
     word = new IntArrayList[order];
     count = new IntArrayList[order];
     index = new Long2IntOpenHashMap[order];
+    suffixLinks = new IntArrayList[order];
     for (int k = 0; k < order; k++) {
+      suffixLinks[k] = new IntArrayList();
       parent[k] = new IntArrayList();
       word[k] = new IntArrayList();
       count[k] = new IntArrayList();
@@ -46,18 +49,32 @@ final class NgramCounts {
 
   /**
    * Counts every n-gram of orders 1 … N inside {@code ids[0..length)} (a sentence already framed by
-   * {@code <s>} … {@code </s>}), except n-grams that start with {@code </s>} and are longer than one token
-   * (there are none: it is last).
+   * {@code <s>} … {@code </s>}). Start positions are visited right to left so that the suffix of each new
+   * n-gram (the one starting one token later) is already known: suffix links cost no look-up.
    */
   void addSentence(int[] ids, int length) {
-    for (int s = 0; s < length; s++) {
+    if (previous.length < order) {
+      previous = new int[order];
+      current = new int[order];
+    }
+    for (int s = length - 1; s >= 0; s--) {
       int e = -1;
       int end = Math.min(length, s + order);
-      for (int j = s; j < end; j++) e = increment(j - s, e, ids[j]);
+      for (int j = s; j < end; j++) {
+        int k = j - s;
+        e = increment(k, e, ids[j], k == 0 ? -1 : previous[k - 1]);
+        current[k] = e;
+      }
+      int[] t = previous;
+      previous = current;
+      current = t;
     }
   }
 
-  private int increment(int k, int p, int w) {
+  private int[] previous = new int[0];
+  private int[] current = new int[0];
+
+  private int increment(int k, int p, int w, int suffixEntry) {
     Long2IntOpenHashMap map = index[k];
     int size = word[k].size();
     int e = map.putIfAbsent(key(p, w), size);
@@ -65,10 +82,10 @@ final class NgramCounts {
       parent[k].add(p);
       word[k].add(w);
       count[k].add(1);
+      suffixLinks[k].add(suffixEntry);
       return size;
     }
-    IntArrayList c = count[k];
-    c.set(e, c.getInt(e) + 1);
+    count[k].elements()[e]++;
     return e;
   }
 
@@ -77,27 +94,64 @@ final class NgramCounts {
     return index[k].get(key(p, w));
   }
 
-  /** Computes suffix links and drops the hash tables (no more counting or {@link #find} afterwards). */
+  /**
+   * Drops the hash tables (no more counting or {@link #find} afterwards) and renumbers every order above 1
+   * in trie order: entries sorted by their parent's (new) index, first-seen order among siblings. Then the
+   * children of an entry are a contiguous index range and a depth-first walk reads every order's arrays
+   * front to back. Suffix links are renumbered along.
+   */
   void freeze() {
     if (suffix != null) return;
-    suffix = new int[order][];
-    for (int k = 0; k < order; k++) {
-      int n = word[k].size();
-      int[] s = new int[n];
-      if (k == 0) {
-        java.util.Arrays.fill(s, -1);
-      } else {
-        int[] par = parent[k].elements();
-        int[] wd = word[k].elements();
-        int[] parentSuffix = suffix[k - 1];
-        for (int i = 0; i < n; i++) {
-          s[i] = index[k - 1].get(key(parentSuffix[par[i]], wd[i]));
-          if (s[i] < 0) throw new IllegalStateException("suffix of an n-gram missing at order " + k);
-        }
-      }
-      suffix[k] = s;
-    }
     index = null;
+    suffix = new int[order][];
+    suffix[0] = suffixLinks[0].toIntArray();
+    int[] previousNewIndex = null;
+    for (int k = 1; k < order; k++) {
+      int n = word[k].size();
+      int parents = word[k - 1].size();
+      int[] par = parent[k].elements();
+      int[] oldToNewParent = previousNewIndex;
+      int[] start = new int[parents + 1];
+      for (int e = 0; e < n; e++) start[newIndex(oldToNewParent, par[e]) + 1]++;
+      for (int h = 0; h < parents; h++) start[h + 1] += start[h];
+      int[] newIndex = new int[n];
+      for (int e = 0; e < n; e++) newIndex[e] = start[newIndex(oldToNewParent, par[e])]++;
+      int[] newParent = new int[n];
+      int[] newWord = new int[n];
+      int[] newCount = new int[n];
+      int[] newSuffix = new int[n];
+      int[] wd = word[k].elements();
+      int[] ct = count[k].elements();
+      int[] sf = suffixLinks[k].elements();
+      for (int e = 0; e < n; e++) {
+        int i = newIndex[e];
+        newParent[i] = newIndex(oldToNewParent, par[e]);
+        newWord[i] = wd[e];
+        newCount[i] = ct[e];
+        newSuffix[i] = newIndex(oldToNewParent, sf[e]);
+      }
+      parent[k] = IntArrayList.wrap(newParent);
+      word[k] = IntArrayList.wrap(newWord);
+      count[k] = IntArrayList.wrap(newCount);
+      suffix[k] = newSuffix;
+      suffixLinks[k] = null;
+      previousNewIndex = newIndex;
+    }
+    suffixLinks[0] = null;
+  }
+
+  private static int newIndex(int[] oldToNew, int old) {
+    return oldToNew == null ? old : oldToNew[old];
+  }
+
+  /** After {@link #freeze()}: the first child (order k+1, 1-based k) index range start of each entry of order k. */
+  int[] childStarts(int k) {
+    int parents = size(k);
+    int[] start = new int[parents + 1];
+    int[] par = parents(k + 1);
+    for (int e = 0; e < size(k + 1); e++) start[par[e] + 1]++;
+    for (int h = 0; h < parents; h++) start[h + 1] += start[h];
+    return start;
   }
 
   boolean frozen() {
