@@ -27,6 +27,10 @@ final class NgramCounts {
   private int[][] suffix;
 
   NgramCounts(int order) {
+    this(order, true);
+  }
+
+  private NgramCounts(int order, boolean counting) {
     this.order = order;
     parent = new IntArrayList[order];
     word = new IntArrayList[order];
@@ -38,8 +42,10 @@ final class NgramCounts {
       parent[k] = new IntArrayList();
       word[k] = new IntArrayList();
       count[k] = new IntArrayList();
-      index[k] = new Long2IntOpenHashMap(k == 0 ? 1 << 10 : 1 << 16);
-      index[k].defaultReturnValue(-1);
+      if (counting) {
+        index[k] = new Long2IntOpenHashMap(k == 0 ? 1 << 10 : 1 << 16);
+        index[k].defaultReturnValue(-1);
+      }
     }
   }
 
@@ -69,6 +75,72 @@ final class NgramCounts {
       previous = current;
       current = t;
     }
+  }
+
+  /**
+   * Counts only the n-grams whose first token falls in {@code shard} ({@code id % shards}); their suffix
+   * links are left unknown (−2) for {@link #merge} to resolve, since suffixes start in other shards.
+   */
+  void addSentenceShard(int[] ids, int from, int to, int shard, int shards) {
+    for (int s = from; s < to; s++) {
+      if (ids[s] % shards != shard) continue;
+      int e = -1;
+      int end = Math.min(to, s + order);
+      for (int j = s; j < end; j++) e = increment(j - s, e, ids[j], j == s ? -1 : -2);
+    }
+  }
+
+  /**
+   * One frozen table from per-shard tables (shard i counted the n-grams whose first token id ≡ i mod the
+   * number of shards): entries are concatenated shard by shard, parents stay in their shard, and suffix
+   * links are looked up in the shard of the n-gram's second token. Renumbered in trie order.
+   */
+  static NgramCounts merge(NgramCounts[] shards) {
+    int order = shards[0].order;
+    int n = shards.length;
+    NgramCounts m = new NgramCounts(order, false);
+    int[][] offset = new int[order][n + 1];
+    for (int k = 0; k < order; k++) {
+      for (int i = 0; i < n; i++) offset[k][i + 1] = offset[k][i] + shards[i].word[k].size();
+      int total = offset[k][n];
+      int[] par = new int[total], wd = new int[total], ct = new int[total], sf = new int[total];
+      for (int i = 0; i < n; i++) {
+        NgramCounts c = shards[i];
+        int size = c.word[k].size();
+        int base = offset[k][i];
+        int[] cp = c.parent[k].elements(), cw = c.word[k].elements(), cc = c.count[k].elements();
+        for (int e = 0; e < size; e++) {
+          par[base + e] = k == 0 ? -1 : cp[e] + offset[k - 1][i];
+          wd[base + e] = cw[e];
+          ct[base + e] = cc[e];
+        }
+      }
+      if (k > 0) {
+        int[] parentSuffix = m.suffixLinks[k - 1].elements();
+        for (int g = 0; g < total; g++) {
+          int ps = parentSuffix[par[g]];
+          int shard = ps < 0 ? wd[g] % n : shardOf(offset[k - 2], ps);
+          int local = ps < 0 ? -1 : ps - offset[k - 2][shard];
+          int e = shards[shard].index[k - 1].get(key(local, wd[g]));
+          if (e < 0) throw new IllegalStateException("suffix of an n-gram missing at order " + (k + 1));
+          sf[g] = e + offset[k - 1][shard];
+        }
+      } else {
+        java.util.Arrays.fill(sf, -1);
+      }
+      m.parent[k] = IntArrayList.wrap(par);
+      m.word[k] = IntArrayList.wrap(wd);
+      m.count[k] = IntArrayList.wrap(ct);
+      m.suffixLinks[k] = IntArrayList.wrap(sf);
+    }
+    m.freeze();
+    return m;
+  }
+
+  private static int shardOf(int[] offsets, int global) {
+    int i = 0;
+    while (global >= offsets[i + 1]) i++;
+    return i;
   }
 
   private int[] previous = new int[0];

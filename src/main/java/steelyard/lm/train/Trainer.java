@@ -49,7 +49,15 @@ public final class Trainer {
     Vocabulary first = mapping == null ? null : vocabulary;
     Vocabulary model = mapping == null ? vocabulary : modelVocabulary(first, mapping);
 
-    NgramCounts counts = new NgramCounts(options.order());
+    boolean sharded = options.smoothing() != Smoothing.ADDK;
+    try (ShardedCounter counter = sharded ? new ShardedCounter(options.order()) : null) {
+      return train(source, options, startNanos, mapping, first, model, counter);
+    }
+  }
+
+  private TrainedModel train(SentenceSource source, TrainingOptions options, long startNanos, int[] mapping,
+      Vocabulary first, Vocabulary model, ShardedCounter counter) {
+    NgramCounts sequential = counter == null ? new NgramCounts(options.order()) : null;
     long[] stats = new long[4]; // sentences, empty lines, tokens, unknown tokens
     IntArrayList buffer = new IntArrayList();
     source.forEach((line, tokens) -> {
@@ -72,13 +80,15 @@ public final class Trainer {
         buffer.add(id);
       }
       buffer.add(1);
-      counts.addSentence(buffer.elements(), buffer.size());
+      if (counter != null) counter.addSentence(buffer.elements(), buffer.size());
+      else sequential.addSentence(buffer.elements(), buffer.size());
       stats[2] += tokens.size();
       if ((++stats[0] & 0x3fff) == 0) progress.accept(stats[0]);
     });
     progress.accept(stats[0]);
     if (stats[0] == 0)
       throw InputException.inFile(source.file(), "no sentence to train on", "at least one non-empty line");
+    NgramCounts counts = counter != null ? counter.finish() : sequential;
 
     long[] distinct = new long[options.order()];
     for (int k = 1; k <= options.order(); k++) distinct[k - 1] = counts.size(k);
