@@ -13,9 +13,11 @@ final class CsvHeader {
   private final List<String> names;
   private final Map<String, Integer> index = new HashMap<>();
   private final String expectedColumns;
+  private final long line;
 
-  private CsvHeader(Path file, List<String> names, String expectedColumns) {
+  private CsvHeader(Path file, long line, List<String> names, String expectedColumns) {
     this.file = file;
+    this.line = line;
     this.names = Collections.unmodifiableList(names);
     this.expectedColumns = expectedColumns;
   }
@@ -30,7 +32,7 @@ final class CsvHeader {
     if (csv.problem() != null) throw InputException.at(file, csv.line(), "header row: " + csv.problem(), csv.problemExpected());
     List<String> names = new ArrayList<>(csv.size());
     for (int i = 0; i < csv.size(); i++) names.add(csv.field(i).strip());
-    CsvHeader h = new CsvHeader(file, names, expectedColumns);
+    CsvHeader h = new CsvHeader(file, csv.line(), names, expectedColumns);
     for (int i = 0; i < names.size(); i++) {
       String name = names.get(i);
       if (name.isEmpty()) {
@@ -58,7 +60,7 @@ final class CsvHeader {
   int required(String name) {
     Integer i = index.get(name);
     if (i == null) {
-      throw InputException.at(file, 1, "header has no '" + name + "' column (found: " + String.join(",", names) + ")", expectedColumns);
+      throw InputException.at(file, line, "header has no '" + name + "' column (found: " + found() + ")", expectedColumns);
     }
     return i;
   }
@@ -67,10 +69,15 @@ final class CsvHeader {
   int feature(String name) {
     Integer i = index.get(name);
     if (i == null) {
-      throw InputException.at(file, 1, "no column '" + name + "' for --features (found: " + String.join(",", names) + ")",
+      throw InputException.at(file, line, "no column '" + name + "' for --features (found: " + found() + ")",
           "--features to name columns of the header");
     }
     return i;
+  }
+
+  private String found() {
+    String all = String.join(",", names);
+    return all.length() <= 80 ? all : all.substring(0, 80) + "…";
   }
 
   /** Index of an optional column, or -1. */

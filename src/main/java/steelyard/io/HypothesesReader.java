@@ -123,7 +123,10 @@ public final class HypothesesReader implements Closeable, Iterator<UtteranceHypo
 
   @Override
   public boolean hasNext() {
-    if (ready == null && !finished) ready = readUtterance();
+    if (ready == null && !finished) {
+      ready = readUtterance();
+      if (ready == null) finish();
+    }
     return ready != null;
   }
 
@@ -218,7 +221,6 @@ public final class HypothesesReader implements Closeable, Iterator<UtteranceHypo
         bad.reject(csv.line(), p.getMessage(), p.expected);
       }
     }
-    finish();
     return null;
   }
 
