@@ -3,6 +3,7 @@ package steelyard.io;
 import java.io.BufferedOutputStream;
 import java.io.BufferedWriter;
 import java.io.FilterOutputStream;
+import java.io.FilterWriter;
 import java.io.IOException;
 import java.io.InterruptedIOException;
 import java.io.OutputStream;
@@ -66,7 +67,12 @@ public final class AtomicOutput {
   public static void writeText(Path target, WriterBody body) {
     writeBytes(target, out -> {
       Writer w = new BufferedWriter(new OutputStreamWriter(out, StandardCharsets.UTF_8.newEncoder()), 1 << 16);
-      body.write(w);
+      body.write(new FilterWriter(w) {
+        @Override
+        public void close() throws IOException {
+          flush();
+        }
+      });
       w.flush();
     });
   }
