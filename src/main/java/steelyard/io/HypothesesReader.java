@@ -87,7 +87,7 @@ public final class HypothesesReader implements Closeable, Iterator<UtteranceHypo
 
   /** Opens a plain, gzipped ({@code .gz}) file; UTF-8 with or without BOM; LF or CRLF. */
   public static HypothesesReader open(Path file, ImportOptions options) {
-    CsvRecordReader csv = new CsvRecordReader(file, InputFiles.open(file));
+    CsvRecordReader csv = new CsvRecordReader(file, InputFiles.openUnbuffered(file));
     try {
       return new HypothesesReader(file, options, csv);
     } catch (RuntimeException e) {

@@ -29,7 +29,12 @@ public final class InputFiles {
 
   /** A reader over the decoded text of {@code file}; a missing or unreadable file is an {@link InputException}. */
   public static BufferedReader open(Path file) {
-    return new BufferedReader(new StrictUtf8Reader(file, openBytes(file)), 1 << 16);
+    return new BufferedReader(openUnbuffered(file), 1 << 16);
+  }
+
+  /** Same checks as {@link #open}, for callers that buffer themselves (the CSV parser). */
+  static StrictUtf8Reader openUnbuffered(Path file) {
+    return new StrictUtf8Reader(file, openBytes(file));
   }
 
   /** Whether the file name says gzip ({@code .gz}, any case). */

@@ -18,7 +18,7 @@ public final class ReferencesReader {
 
   /** All references in file order, keyed by utterance id. */
   public static LinkedHashMap<String, Reference> readAll(Path file, ImportOptions options) {
-    try (CsvRecordReader csv = new CsvRecordReader(file, InputFiles.open(file))) {
+    try (CsvRecordReader csv = new CsvRecordReader(file, InputFiles.openUnbuffered(file))) {
       CsvHeader header = CsvHeader.read(file, csv, EXPECTED_HEADER);
       int colUtt = header.required("utt_id");
       int colText = header.required("text");
