@@ -27,7 +27,7 @@ import java.util.NoSuchElementException;
  *
  * <p>Row-level problems (wrong field count, stray quote, empty {@code utt_id}, bad rank, bad score, duplicate
  * rank) go through the lenient-mode budget; structural ones (header, contiguity, encoding, a quote open at
- * end of file) always fail. Memory: the current and the next utterance's rows, plus about 32 bytes per
+ * end of file) always fail. Memory: the current and the next utterance's rows, plus 32 to 64 bytes per
  * finished utterance id for the contiguity check (see {@link UttIdLedger}).
  *
  * <p>Not thread-safe.

@@ -71,6 +71,7 @@ final class StrictUtf8Reader extends Reader {
       if (flushed) return false;
       chars.clear();
       if (!endOfBytes) readBytes();
+      if (charsSeen == 0 && line == 1 && column == 0) sniff();
       bytes.flip();
       CoderResult result = decoder.decode(bytes, chars, endOfBytes);
       bytes.compact();
@@ -97,6 +98,19 @@ final class StrictUtf8Reader extends Reader {
           .withCause(e);
     } catch (IOException e) {
       throw InputException.inFile(file, "cannot read file (" + e.getMessage() + ")", "a readable file").withCause(e);
+    }
+  }
+
+  /** Names two common mix-ups at the very start of a file, before they surface as an invalid byte. */
+  private void sniff() {
+    if (bytes.position() < 2) return;
+    int b0 = bytes.get(0) & 0xff;
+    int b1 = bytes.get(1) & 0xff;
+    if ((b0 == 0xff && b1 == 0xfe) || (b0 == 0xfe && b1 == 0xff)) {
+      throw InputException.inFile(file, "UTF-16 text (starts with a UTF-16 byte-order mark)", "UTF-8 text; convert the file to UTF-8 first");
+    }
+    if (b0 == 0x1f && b1 == 0x8b) {
+      throw InputException.inFile(file, "gzip data although the name does not end in .gz", "a name ending in .gz for a gzipped file");
     }
   }
 

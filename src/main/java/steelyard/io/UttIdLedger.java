@@ -5,8 +5,9 @@ package steelyard.io;
  * after other utterances, without keeping the id strings.
  *
  * <p>Storage: open addressing over three parallel primitive arrays holding a 128-bit fingerprint of the id
- * (two independent 64-bit hashes) and the 1-based line where the id was first seen: 24 bytes per slot, load
- * at most 0.75, so about 32 bytes per utterance whatever the id length (a million utterances ≈ 32 MB).
+ * (two independent 64-bit hashes) and the 1-based line where the id was first seen: 24 bytes per slot,
+ * load between 0.375 and 0.75, so 32 to 64 bytes per utterance whatever the id length (a million
+ * utterances: 32–64 MB).
  * Capacity limit 2^30 slots. Two different ids sharing a 128-bit fingerprint would be wrongly reported as a
  * repeat; for n ids that has probability about n²/2^129 (≈ 10^-21 for a billion ids).
  */
