@@ -17,9 +17,9 @@ import java.util.concurrent.atomic.LongAdder;
  * {@code oclock}); hyphen splitting (a run of Pd dashes between two characters that are neither whitespace
  * nor punctuation separates words: {@code cold-store} → {@code cold store}; splitting is decided on the
  * text before stripping, so the two options together still give {@code cold store}); whitespace
- * tokenisation into words (any Unicode whitespace; runs count once); user rules (equivalences map a phrase
- * to its canonical form, dropped phrases vanish, optionally-deletable phrases are kept but flagged so
- * alignment never counts them as an error whether present or absent). When stripping or folding leaves a
+ * tokenisation into words (any Unicode whitespace; runs count once); user rules (dropped phrases vanish
+ * first, then equivalences map a phrase to its canonical form and optionally-deletable phrases are kept
+ * but flagged so alignment never counts them as an error whether present or absent; see {@link RulesFile}). When stripping or folding leaves a
  * word that is no longer NFKC (a combining mark meeting a new base letter), the steps run again, so the
  * output is a fixed point: normalising the joined output gives the same tokens.
  *

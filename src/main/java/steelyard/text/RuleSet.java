@@ -22,7 +22,7 @@ import steelyard.io.InputException;
  * normaliser.
  */
 final class RuleSet {
-  static final RuleSet NONE = new RuleSet(List.of(), Map.of());
+  static final RuleSet NONE = new RuleSet(List.of(), Map.of(), Map.of());
 
   /** A normalised phrase and what to do with it. */
   private static final class Entry {
@@ -43,10 +43,13 @@ final class RuleSet {
 
   private final List<RulesFile.Rule> rules;
   private final Map<String, Entry[]> byFirstWord;
+  /** The phrases that vanish: drop rules, and equate variants whose canonical form is dropped. */
+  private final Map<String, Entry[]> dropsByFirstWord;
 
-  private RuleSet(List<RulesFile.Rule> rules, Map<String, Entry[]> byFirstWord) {
+  private RuleSet(List<RulesFile.Rule> rules, Map<String, Entry[]> byFirstWord, Map<String, Entry[]> drops) {
     this.rules = List.copyOf(rules);
     this.byFirstWord = byFirstWord;
+    this.dropsByFirstWord = drops;
   }
 
   List<RulesFile.Rule> rules() {
@@ -54,7 +57,7 @@ final class RuleSet {
   }
 
   boolean isEmpty() {
-    return byFirstWord.isEmpty();
+    return byFirstWord.isEmpty() && dropsByFirstWord.isEmpty();
   }
 
   /**
@@ -111,12 +114,19 @@ final class RuleSet {
         e.replacementRule = flag.rule;
       }
     }
-    return new RuleSet(rules, index(phrases));
+    List<Entry> kept = new ArrayList<>();
+    List<Entry> drops = new ArrayList<>();
+    for (Entry e : phrases.values()) (vanishes(e) ? drops : kept).add(e);
+    return new RuleSet(rules, index(kept), index(drops));
   }
 
-  private static Map<String, Entry[]> index(Map<String, Entry> phrases) {
+  private static boolean vanishes(Entry e) {
+    return e.kind == RuleKind.DROP || e.replacementKind == RuleKind.DROP;
+  }
+
+  private static Map<String, Entry[]> index(List<Entry> entries) {
     Map<String, List<Entry>> grouped = new HashMap<>();
-    for (Entry e : phrases.values()) grouped.computeIfAbsent(e.words[0], k -> new ArrayList<>()).add(e);
+    for (Entry e : entries) grouped.computeIfAbsent(e.words[0], k -> new ArrayList<>()).add(e);
     Map<String, Entry[]> out = new HashMap<>();
     Comparator<Entry> longestFirst = Comparator.<Entry>comparingInt(e -> -e.words.length)
         .thenComparing(e -> String.join(" ", e.words));
@@ -131,14 +141,19 @@ final class RuleSet {
   /**
    * Applies the rules to {@code words}, appending the result to {@code out} with a flag per word in
    * {@code optional}, and adding the words each rule touched to {@code counts} (indexed like the rules).
+   *
+   * <p>Dropped phrases go first, repeatedly until none is left, so that the words on either side meet as
+   * they will when the output is normalised again ({@code oh [crosstalk] kay} matches {@code oh kay}).
+   * Then equate and optional phrases are matched once, greedily, longest first.
    */
   void apply(List<String> words, List<String> out, BooleanArrayList optional, LongAdder[] counts) {
-    int n = words.size();
+    List<String> kept = dropsByFirstWord.isEmpty() ? words : withoutDropped(words, counts);
+    int n = kept.size();
     int i = 0;
     while (i < n) {
-      Entry e = match(words, i);
+      Entry e = match(byFirstWord, kept, i);
       if (e == null) {
-        out.add(words.get(i++));
+        out.add(kept.get(i++));
         optional.add(false);
         continue;
       }
@@ -149,24 +164,42 @@ final class RuleSet {
           out.add(w);
           optional.add(true);
         }
-      } else if (e.kind == RuleKind.EQUATE) {
-        addReplacement(e, out, optional, counts);
+      } else {
+        if (e.replacementRule >= 0) counts[e.replacementRule].add(e.replacement.length);
+        boolean flag = e.replacementKind == RuleKind.OPTIONAL;
+        for (String w : e.replacement) {
+          out.add(w);
+          optional.add(flag);
+        }
       }
     }
   }
 
-  private static void addReplacement(Entry e, List<String> out, BooleanArrayList optional, LongAdder[] counts) {
-    if (e.replacementRule >= 0) counts[e.replacementRule].add(e.replacement.length);
-    if (e.replacementKind == RuleKind.DROP) return;
-    boolean flag = e.replacementKind == RuleKind.OPTIONAL;
-    for (String w : e.replacement) {
-      out.add(w);
-      optional.add(flag);
+  private List<String> withoutDropped(List<String> words, LongAdder[] counts) {
+    List<String> current = words;
+    while (true) {
+      List<String> next = null;
+      int i = 0;
+      int n = current.size();
+      while (i < n) {
+        Entry e = match(dropsByFirstWord, current, i);
+        if (e == null) {
+          if (next != null) next.add(current.get(i));
+          i++;
+          continue;
+        }
+        if (next == null) next = new ArrayList<>(current.subList(0, i));
+        counts[e.rule].add(e.words.length);
+        if (e.replacementRule >= 0) counts[e.replacementRule].add(e.replacement.length);
+        i += e.words.length;
+      }
+      if (next == null) return current;
+      current = next;
     }
   }
 
-  private Entry match(List<String> words, int at) {
-    Entry[] candidates = byFirstWord.get(words.get(at));
+  private static Entry match(Map<String, Entry[]> index, List<String> words, int at) {
+    Entry[] candidates = index.get(words.get(at));
     if (candidates == null) return null;
     for (Entry e : candidates) if (matchesAt(e.words, words, at)) return e;
     return null;

@@ -142,6 +142,13 @@ class RulesTest {
     }
 
     @Test
+    void dropsFirstSoThatTheWordsAroundADroppedOneMeet() {
+      Normaliser n = withRules("equate ok = oh kay\ndrop [crosstalk]");
+      assertThat(n.tokenList("oh [crosstalk] kay", Unit.WORD)).containsExactly("ok");
+      assertThat(n.ruleUsage().rules()).extracting(RuleUsage.RuleCount::tokens).containsExactly(2L, 1L);
+    }
+
+    @Test
     void dropsAVariantWhoseCanonicalFormIsDropped() {
       Normaliser n = withRules("equate [noise] = <noise>\ndrop [noise]");
       assertThat(n.tokenList("a <noise> b", Unit.WORD)).containsExactly("a", "b");
