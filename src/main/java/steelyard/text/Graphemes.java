@@ -20,6 +20,16 @@ public final class Graphemes {
   /** First code unit that can take part in a multi-code-point cluster, apart from CR LF. */
   private static final char FIRST_JOINING = '\u0300';
 
+  /**
+   * One shared string per code unit below U+0300, so the fast path allocates nothing per character
+   * (768 one-char strings, about 40 KB once per JVM).
+   */
+  private static final String[] SINGLE = new String[FIRST_JOINING];
+
+  static {
+    for (char c = 0; c < FIRST_JOINING; c++) SINGLE[c] = String.valueOf(c);
+  }
+
   private Graphemes() {}
 
   /** The extended grapheme clusters of {@code text}, in order; empty for an empty string. */
@@ -34,9 +44,12 @@ public final class Graphemes {
     int n = text.length();
     if (isSimple(text)) {
       for (int i = 0; i < n; i++) {
-        int end = crlfAt(text, i) ? i + 2 : i + 1;
-        out.add(text.subSequence(i, end).toString());
-        i = end - 1;
+        if (crlfAt(text, i)) {
+          out.add("\r\n");
+          i++;
+        } else {
+          out.add(SINGLE[text.charAt(i)]);
+        }
       }
       return;
     }

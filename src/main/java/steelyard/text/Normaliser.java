@@ -1,6 +1,8 @@
 package steelyard.text;
 
 import it.unimi.dsi.fastutil.booleans.BooleanArrayList;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Path;
 import java.text.Normalizer;
 import java.util.ArrayList;
 import java.util.Collections;
@@ -8,6 +10,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Objects;
 import java.util.concurrent.atomic.LongAdder;
+import java.util.zip.CRC32;
 
 /**
  * Turns raw transcript text into the token sequence that scoring and language models see.
@@ -69,6 +72,29 @@ public final class Normaliser {
 
   public NormalisationOptions options() {
     return options;
+  }
+
+  /**
+   * A one-line, stable description of what this normaliser does, for recording in model files and
+   * reports and for comparing two set-ups: {@code nfkc}, then each option that is on
+   * ({@code fold-case strip-punct split-hyphens ignore-space}), then {@code rules=NAME#CRC} with the rules
+   * file's name and the CRC-32 (8 hex digits) of its rule lines (comments and blank lines excluded), e.g.
+   * {@code nfkc fold-case strip-punct rules=warehouse.rules#5d41a3b2}.
+   */
+  public String describe() {
+    StringBuilder sb = new StringBuilder("nfkc");
+    if (options.foldCase()) sb.append(" fold-case");
+    if (options.stripPunctuation()) sb.append(" strip-punct");
+    if (options.splitHyphens()) sb.append(" split-hyphens");
+    if (options.ignoreWhitespace()) sb.append(" ignore-space");
+    if (options.rulesFile() != null) {
+      CRC32 crc = new CRC32();
+      for (RulesFile.Rule r : rules.rules()) crc.update((r.text() + "\n").getBytes(StandardCharsets.UTF_8));
+      Path name = options.rulesFile().getFileName();
+      sb.append(" rules=").append(name == null ? options.rulesFile() : name)
+          .append('#').append(String.format(Locale.ROOT, "%08x", crc.getValue()));
+    }
+    return sb.toString();
   }
 
   /** Normalised tokens of {@code raw} in the given unit, with optionally-deletable flags. */

@@ -225,6 +225,25 @@ class RulesTest {
   }
 
   @Nested
+  class Description {
+    @Test
+    void namesTheOptionsThatAreOn() {
+      assertThat(Normaliser.create(NormalisationOptions.EXACT).describe()).isEqualTo("nfkc");
+      assertThat(Normaliser.create(new NormalisationOptions(true, true, true, true, null)).describe())
+          .isEqualTo("nfkc fold-case strip-punct split-hyphens ignore-space");
+    }
+
+    @Test
+    void fingerprintsTheRulesButNotTheirComments() {
+      String a = withRules("# one\noptional uh\n").describe();
+      String b = withRules("optional uh\n\n# two\n").describe();
+      String c = withRules("optional um\n").describe();
+      assertThat(a).isEqualTo(b).matches("nfkc rules=test\\.rules#[0-9a-f]{8}");
+      assertThat(c).isNotEqualTo(a);
+    }
+  }
+
+  @Nested
   class MalformedFiles {
     @ParameterizedTest(name = "[{index}] {0}")
     @CsvSource(delimiter = '|', value = {
