@@ -171,6 +171,16 @@ class RulesTest {
     }
 
     @Test
+    void makesTheReadmeExampleErrorFree() {
+      Normaliser n = Normaliser.create(new NormalisationOptions(true, true, false, false, fixture("warehouse.rules")));
+      TokenSequence ref = n.tokens("Okay, uh, twelve kilos to the cold-store [crosstalk]", Unit.WORD);
+      TokenSequence hyp = n.tokens("ok twelve kg to the coldstore", Unit.WORD);
+      assertThat(ref.tokens()).containsExactly("ok", "uh", "twelve", "kg", "to", "the", "cold", "store");
+      assertThat(ref.optional()).containsExactly(false, true, false, false, false, false, false, false);
+      assertThat(hyp.tokens()).containsExactly("ok", "twelve", "kg", "to", "the", "cold", "store");
+    }
+
+    @Test
     void startsFromZeroWithFreshCounts() {
       Normaliser n = withRules("optional uh");
       n.tokenList("uh uh", Unit.WORD);
