@@ -97,8 +97,12 @@ public final class Normaliser {
     return sb.toString();
   }
 
-  /** Normalised tokens of {@code raw} in the given unit, with optionally-deletable flags. */
+  /** Normalised tokens of {@code raw} (not null; may be empty) in the given unit, with optionally-deletable flags. */
   public TokenSequence tokens(String raw, Unit unit) {
+    if (unit == Unit.WORD && rules.isEmpty()) {
+      List<String> words = words(raw);
+      return new TokenSequence(words, new boolean[words.size()]);
+    }
     List<String> out = new ArrayList<>();
     BooleanArrayList optional = new BooleanArrayList();
     tokensInto(raw, unit, out, optional);

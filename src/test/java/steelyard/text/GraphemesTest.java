@@ -17,7 +17,7 @@ class GraphemesTest {
   @Nested
   class ExtendedClusters {
     // Each row is one extended grapheme cluster per Unicode Standard Annex #29, "Unicode Text Segmentation"
-    // (Table 1a examples and the rules named beside each row).
+    // (Table 1a examples, from memory, and the rules named beside each row).
     @ParameterizedTest(name = "[{index}] {1}")
     @CsvSource({
         "'e\u0301', e + COMBINING ACUTE (GB9)",
