@@ -22,9 +22,10 @@ import java.util.zip.CRC32;
  * text before stripping, so the two options together still give {@code cold store}); whitespace
  * tokenisation into words (any Unicode whitespace; runs count once); user rules (dropped phrases vanish
  * first, then equivalences map a phrase to its canonical form and optionally-deletable phrases are kept
- * but flagged so alignment never counts them as an error whether present or absent; see {@link RulesFile}). When stripping or folding leaves a
- * word that is no longer NFKC (a combining mark meeting a new base letter), the steps run again, so the
- * output is a fixed point: normalising the joined output gives the same tokens.
+ * but flagged so alignment never counts them as an error whether present or absent; see {@link RulesFile}).
+ * When stripping or folding leaves a word that is no longer NFKC (a combining mark meeting a new base
+ * letter), the steps run again, so the output is a fixed point: normalising the joined output gives the
+ * same tokens (with rules too, unless two multi-word phrases overlap: rule output is not matched again).
  *
  * <p>At {@link Unit#CHAR} the resulting words are split into extended grapheme clusters ({@code \X},
  * Unicode Standard Annex #29) with one {@link #SPACE_TOKEN} between words (none at the ends), or none at
@@ -59,7 +60,10 @@ public final class Normaliser {
     return create(options, RulesFile.read(options.rulesFile()));
   }
 
-  /** Builds a normaliser from rules already parsed (e.g. by {@link RulesFile#parse}); the options' file only labels errors. */
+  /**
+   * Builds a normaliser from rules already parsed (e.g. by {@link RulesFile#parse}); the options' rules
+   * file is not read, it only labels errors.
+   */
   public static Normaliser create(NormalisationOptions options, List<RulesFile.Rule> parsedRules) {
     Normaliser base = new Normaliser(options, RuleSet.NONE);
     return new Normaliser(options, RuleSet.compile(parsedRules, base::words, options.rulesFile()));
