@@ -117,23 +117,12 @@ final class CsvRecordReader implements Closeable {
     }
     boolean kept = keep == null || (count < keep.length && keep[count]);
     sb.setLength(0);
-    int length = 0;
+    int length;
     long fieldLine = line;
-    int c = read();
-    if (c == '"') {
-      while (true) {
-        c = read();
-        if (c < 0) {
-          throw InputException.at(file, fieldLine, "quoted field opened on this line is never closed", "a closing double quote (\") before the end of the file");
-        }
-        if (c == '"') {
-          if (peek() != '"') break;
-          read();
-        }
-        if (c == '\n') line++;
-        if (++length > MAX_FIELD_CHARS) throw tooLong(fieldLine);
-        if (kept) sb.append((char) c);
-      }
+    int c;
+    if (peek() == '"') {
+      read();
+      length = readQuoted(kept, fieldLine);
       c = read();
       if (c != ',' && c != '\n' && c >= 0 && !(c == '\r' && peek() == '\n')) {
         note("text after the closing quote of field " + (count + 1), "a comma or the end of the row after a closing quote");
@@ -144,17 +133,63 @@ final class CsvRecordReader implements Closeable {
         }
       }
     } else {
-      while (c >= 0 && c != ',' && c != '\n' && !(c == '\r' && peek() == '\n')) {
-        if (c == '"') note("double quote inside unquoted field " + (count + 1), "the whole field in double quotes, with each inner quote doubled (\"\")");
-        if (++length > MAX_FIELD_CHARS) throw tooLong(fieldLine);
-        if (kept) sb.append((char) c);
-        c = read();
-      }
+      c = readUnquoted(kept, fieldLine);
     }
     if (c == '\r') c = read();
     if (c == '\n') line++;
     store(kept ? sb.toString() : null);
     return c == ',' ? ',' : -1;
+  }
+
+  /** Reads a quoted field's content after its opening quote, through its closing quote; returns its length. */
+  private int readQuoted(boolean kept, long fieldLine) {
+    int length = 0;
+    while (true) {
+      if (pos == lim && !refill()) {
+        throw InputException.at(file, fieldLine, "quoted field opened on this line is never closed",
+            "a closing double quote (\") before the end of the file");
+      }
+      int i = pos;
+      while (i < lim && buf[i] != '"') {
+        if (buf[i] == '\n') line++;
+        i++;
+      }
+      length += i - pos;
+      if (length > MAX_FIELD_CHARS) throw tooLong(fieldLine);
+      if (kept) sb.append(buf, pos, i - pos);
+      pos = i;
+      if (i == lim) continue;
+      pos++;
+      if (peek() != '"') return length;
+      pos++;
+      if (++length > MAX_FIELD_CHARS) throw tooLong(fieldLine);
+      if (kept) sb.append('"');
+    }
+  }
+
+  /** Reads an unquoted field up to its terminator; returns ',' or '\n' or '\r' (before LF) or -1 at EOF. */
+  private int readUnquoted(boolean kept, long fieldLine) {
+    int length = 0;
+    while (true) {
+      if (pos == lim && !refill()) return -1;
+      int i = pos;
+      while (i < lim) {
+        char ch = buf[i];
+        if (ch == ',' || ch == '\n' || ch == '\r' || ch == '"') break;
+        i++;
+      }
+      length += i - pos;
+      if (length > MAX_FIELD_CHARS) throw tooLong(fieldLine);
+      if (kept) sb.append(buf, pos, i - pos);
+      pos = i;
+      if (i == lim) continue;
+      char ch = buf[pos++];
+      if (ch == ',' || ch == '\n') return ch;
+      if (ch == '\r' && peek() == '\n') return '\r';
+      if (ch == '"') note("double quote inside unquoted field " + (count + 1), "the whole field in double quotes, with each inner quote doubled (\"\")");
+      if (++length > MAX_FIELD_CHARS) throw tooLong(fieldLine);
+      if (kept) sb.append(ch);
+    }
   }
 
   private void store(String value) {
