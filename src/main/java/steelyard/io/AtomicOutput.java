@@ -32,9 +32,11 @@ import java.util.concurrent.ThreadLocalRandom;
  * <p>The temporary file is named {@code .NAME.steelyard-tmp-RANDOM} beside the target, flushed and forced to
  * disk ({@link FileChannel#force}) before an atomic rename (a plain replacing move where the file system has
  * no atomic rename). On any failure, including an exception from the body, the temporary file is deleted and
- * the old target is untouched; a normal JVM shutdown (Ctrl-C) also deletes unfinished temporary files. Only a
- * hard kill can leave one behind; such leftovers are reported on stderr by the next write to the same target
- * but never deleted, because a file the tool did not just create may belong to the user.
+ * the old target is untouched. A target that is a symbolic link keeps the link and replaces the file it
+ * points to (the temporary file goes beside that file). A normal JVM shutdown (Ctrl-C) also deletes
+ * unfinished temporary files. Only a hard kill can leave one behind; such leftovers are reported on stderr
+ * by the next write to the same target but never deleted, because a file the tool did not just create may
+ * belong to the user.
  *
  * <p>Test-only switch: the system property {@value #PAUSE_PROPERTY}{@code =N} makes every write pause forever
  * once N bytes are in the temporary file (after printing one line to stderr), so a test can kill the process
@@ -83,7 +85,7 @@ public final class AtomicOutput {
       writeStdout(body);
       return;
     }
-    Path abs = target.toAbsolutePath().normalize();
+    Path abs = followLink(target.toAbsolutePath().normalize());
     Path dir = abs.getParent();
     if (Files.isDirectory(abs)) throw InputException.inFile(target, "is a directory", "a file path for the output");
     if (dir == null || !Files.isDirectory(dir)) {
@@ -205,6 +207,16 @@ public final class AtomicOutput {
       d.force(true);
     } catch (IOException | RuntimeException e) {
       // best effort
+    }
+  }
+
+  /** A target that is a symbolic link is written through: the link stays, the file it points to is replaced. */
+  private static Path followLink(Path abs) {
+    if (!Files.isSymbolicLink(abs)) return abs;
+    try {
+      return abs.toRealPath();
+    } catch (IOException e) {
+      return abs; // dangling link: replaced by the new file
     }
   }
 

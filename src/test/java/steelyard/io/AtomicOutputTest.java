@@ -76,6 +76,15 @@ class AtomicOutputTest {
   }
 
   @Test
+  void writesThroughASymbolicLinkAndKeepsTheLink() throws IOException {
+    Path real = Files.writeString(Files.createDirectories(dir.resolve("store")).resolve("picks.csv"), "old\n");
+    Path link = Files.createSymbolicLink(dir.resolve("picks.csv"), real);
+    AtomicOutput.writeText(link, w -> w.write("new\n"));
+    assertThat(Files.isSymbolicLink(link)).isTrue();
+    assertThat(Files.readString(real)).isEqualTo("new\n");
+  }
+
+  @Test
   void writesBinaryBodies() throws IOException {
     Path target = dir.resolve("model.bin");
     AtomicOutput.writeBytes(target, o -> o.write(new byte[] {0, 1, 2, (byte) 0xff}));
