@@ -81,6 +81,16 @@ class HypothesesReaderTest {
     }
 
     @Test
+    void deliversEachUtteranceBeforeReadingPastTheNextOnesFirstRow() {
+      Path f = Csv.write(dir, "stream.csv", HEADER + "u1,1,a,-1,-2\nu2,1,b,-1,-2\nu2,2,c,-1,oops\n");
+      try (HypothesesReader r = HypothesesReader.open(f, ImportOptions.strict(FeatureSpec.parseList("lm")))) {
+        assertThat(r.next().uttId()).isEqualTo("u1");
+        assertThat(r.rowsRead()).isEqualTo(1);
+        assertThatThrownBy(r::next).isInstanceOf(InputException.class).hasMessageStartingWith(f + ":4: score column 'lm' is 'oops'");
+      }
+    }
+
+    @Test
     void rejectsFieldOverTheCapWithoutReadingItAll() {
       StringBuilder sb = new StringBuilder(HEADER).append("u1,1,\"");
       sb.append("a".repeat(10 * 1024 * 1024)).append("\",-1,-2\n");
