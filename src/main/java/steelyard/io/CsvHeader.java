@@ -76,8 +76,7 @@ final class CsvHeader {
   }
 
   private String found() {
-    String all = String.join(",", names);
-    return all.length() <= 80 ? all : all.substring(0, 80) + "…";
+    return Messages.shown(String.join(",", names), 80);
   }
 
   /** Index of an optional column, or -1. */

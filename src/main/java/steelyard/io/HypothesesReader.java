@@ -275,7 +275,7 @@ public final class HypothesesReader implements Closeable, Iterator<UtteranceHypo
   }
 
   static String shown(String value) {
-    return value.length() <= SHOWN_VALUE_CHARS ? value : value.substring(0, SHOWN_VALUE_CHARS) + "…";
+    return Messages.shown(value, SHOWN_VALUE_CHARS);
   }
 
   @Override
