@@ -41,7 +41,7 @@ public record Discounts(int order, long[] countOfCounts, double[] values, boolea
   /**
    * Modified Kneser-Ney discounts (Chen &amp; Goodman 1998, eq. 26): Y = n1/(n1+2·n2), D1 = 1 − 2Y·n2/n1,
    * D2 = 2 − 3Y·n3/n2, D3+ = 3 − 4Y·n4/n3. D_k is invalid when one of n1, n2, n_k, n_k+1 is zero or the
-   * value is not in (0, k]; it then falls back to {@link #DEFAULT_MKN}[k−1] and a warning is added.
+   * value is not in (0, k]; it then falls back to {@link #defaultModifiedKneserNey()}[k−1] with a warning.
    */
   static Discounts modifiedKneserNey(int order, long[] n, List<String> warnings) {
     double y = (double) n[0] / (n[0] + 2.0 * n[1]);
@@ -83,8 +83,12 @@ public record Discounts(int order, long[] countOfCounts, double[] values, boolea
     return new Discounts(order, n, new double[0], new boolean[0]);
   }
 
+  private static final double[] DEFAULT_MKN = {0.5, 1.0, 1.5};
+
   /** Defaults for invalid modified Kneser-Ney discounts: D1 = 0.5, D2 = 1.0, D3+ = 1.5 (half of the maximum k). */
-  public static final double[] DEFAULT_MKN = {0.5, 1.0, 1.5};
+  public static double[] defaultModifiedKneserNey() {
+    return DEFAULT_MKN.clone();
+  }
 
   /** Default for an invalid absolute discount: 0.5. */
   public static final double DEFAULT_ABS = 0.5;

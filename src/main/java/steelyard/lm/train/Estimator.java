@@ -56,6 +56,7 @@ final class Estimator {
     adjustCounts();
     for (int k = 1; k <= order; k++) discounts.add(discountsOf(k));
     interpolate();
+    adjusted = null;
     applyCutoffs();
   }
 
@@ -195,11 +196,6 @@ final class Estimator {
     }
   }
 
-  /** The interpolation weight of the empty history (the share of the uniform distribution). */
-  double rootWeight() {
-    return rootGamma;
-  }
-
   /** Probability of a vocabulary word that was never seen (only {@code <unk>} can be): γ(ε)/|V|. */
   double unseenUnigram() {
     return rootGamma / vocabularyWithoutStart;
@@ -279,6 +275,7 @@ final class Estimator {
    * consecutive n-grams hit the same, already cached, table slots.
    */
   void addTo(BackoffModel.Builder builder) {
+    counts.releaseCountsAndSuffixes();
     int[][] childStart = new int[order + 1][];
     for (int k = 1; k < order; k++) childStart[k + 1] = counts.childStarts(k);
     int[] ids = new int[order];
@@ -322,8 +319,4 @@ final class Estimator {
 
   /** The customary log10 "probability" of {@code <s>}, which is never predicted. */
   static final double START_LOG10 = -99;
-
-  int[][] adjustedCounts() {
-    return adjusted;
-  }
 }

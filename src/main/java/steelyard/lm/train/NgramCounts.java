@@ -132,7 +132,13 @@ final class NgramCounts {
       m.word[k] = IntArrayList.wrap(wd);
       m.count[k] = IntArrayList.wrap(ct);
       m.suffixLinks[k] = IntArrayList.wrap(sf);
+      for (NgramCounts c : shards) {
+        // copied, and no later order looks up entries of order k−1: release them early
+        c.parent[k] = c.word[k] = c.count[k] = c.suffixLinks[k] = null;
+        if (k > 0) c.index[k - 1] = null;
+      }
     }
+    for (NgramCounts c : shards) c.index = null;
     m.freeze();
     return m;
   }
@@ -210,6 +216,12 @@ final class NgramCounts {
       previousNewIndex = newIndex;
     }
     suffixLinks[0] = null;
+  }
+
+  /** After estimation: drops counts and suffix links (8 bytes per entry); parents and words stay. */
+  void releaseCountsAndSuffixes() {
+    for (int k = 0; k < order; k++) count[k] = null;
+    suffix = new int[0][];
   }
 
   private static int newIndex(int[] oldToNew, int old) {

@@ -69,7 +69,9 @@ final class ShardedCounter implements AutoCloseable {
     }
     finished = true;
     checkFailure();
-    return NgramCounts.merge(shards);
+    NgramCounts merged = NgramCounts.merge(shards);
+    Arrays.fill(shards, null);
+    return merged;
   }
 
   /** Stops the workers when counting was abandoned (an input error); no effect after {@link #finish()}. */

@@ -66,7 +66,7 @@ class KneserNeyByHandTest {
   void unigramLevelUsesContinuationCountsAndFallsBackWhenTheyGiveNoDiscount() {
     Discounts d = trained.report().discounts().get(0);
     assertThat(d.countOfCounts()).containsExactly(0, 3, 1, 0);
-    assertThat(d.values()).containsExactly(Discounts.DEFAULT_MKN);
+    assertThat(d.values()).containsExactly(Discounts.defaultModifiedKneserNey());
     assertThat(d.fallback()).containsExactly(true, true, true);
     assertThat(trained.report().warnings()).hasSize(3).allMatch(w -> w.startsWith("order 1: discount"));
   }
