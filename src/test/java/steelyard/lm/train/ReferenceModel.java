@@ -102,9 +102,20 @@ final class ReferenceModel {
 
   private double interpolated(List<String> h, String w) {
     double lower = h.isEmpty() ? 1.0 / vocabulary.size() : interpolated(h.subList(1, h.size()), w);
-    double total = 0;
-    int distinct = 0;
-    double discounted = 0;
+    double[] stats = historyStats.computeIfAbsent(h, this::historyStats);
+    double total = stats[0], distinct = stats[1], discounted = stats[2];
+    if (total == 0) return lower;
+    int c = count(concat(h, w));
+    if (smoothing == Smoothing.WB) return (c + distinct * lower) / (total + distinct);
+    double alpha = c == 0 ? 0 : (c - discount(h.size() + 1, c)) / total;
+    return alpha + discounted / total * lower;
+  }
+
+  private final Map<List<String>, double[]> historyStats = new HashMap<>();
+
+  /** Σ_v c(h v), the number of v with c(h v) > 0, and Σ_v D(c(h v)) over the vocabulary. */
+  private double[] historyStats(List<String> h) {
+    double total = 0, distinct = 0, discounted = 0;
     for (String v : vocabulary) {
       int c = count(concat(h, v));
       if (c == 0) continue;
@@ -112,11 +123,7 @@ final class ReferenceModel {
       distinct++;
       if (smoothing != Smoothing.WB) discounted += discount(h.size() + 1, c);
     }
-    if (total == 0) return lower;
-    int c = count(concat(h, w));
-    if (smoothing == Smoothing.WB) return (c + distinct * lower) / (total + distinct);
-    double alpha = c == 0 ? 0 : (c - discount(h.size() + 1, c)) / total;
-    return alpha + discounted / total * lower;
+    return new double[] {total, distinct, discounted};
   }
 
   private double addK(List<String> h, String w) {
