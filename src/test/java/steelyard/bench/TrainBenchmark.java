@@ -26,11 +26,16 @@ import steelyard.text.Unit;
  * java -Xmx3g -cp "target/test-classes:target/classes:$(cat cp.txt)" steelyard.bench.TrainBenchmark [tokens] [vocab] [order]
  * </pre>
  *
- * Prints: counting + estimation seconds from pre-split tokens (no file, no normalisation); the same from the
- * corpus file through the normaliser; ARPA writing seconds; n-grams per order; heap used after training.
+ * Prints: counting + estimation seconds (wall and process CPU, so that a run on a busy machine can still be
+ * judged) from pre-split tokens (no file, no normalisation); the same from the corpus file through the
+ * normaliser; ARPA writing seconds; n-grams per order; heap used after training; the system load average.
  */
 public final class TrainBenchmark {
   private TrainBenchmark() {}
+
+  private static com.sun.management.OperatingSystemMXBean os() {
+    return (com.sun.management.OperatingSystemMXBean) java.lang.management.ManagementFactory.getOperatingSystemMXBean();
+  }
 
   public static void main(String[] args) throws Exception {
     long tokens = args.length > 0 ? Long.parseLong(args[0]) : 10_000_000L;
@@ -48,10 +53,14 @@ public final class TrainBenchmark {
       long line = 0;
       while (corpus.hasNext()) sink.accept(++line, Arrays.asList(corpus.next().split(" ")));
     };
+    System.out.printf(Locale.ROOT, "system load average before: %.2f%n", os().getSystemLoadAverage());
     long t0 = System.nanoTime();
+    long c0 = os().getProcessCpuTime();
     TrainedModel trained = new Trainer(options).train(generated);
     double s = (System.nanoTime() - t0) / 1e9;
-    System.out.printf(Locale.ROOT, "train from generated tokens: %.2f s (trainer's own clock: %.2f s)%n", s, trained.report().seconds());
+    double cpu = (os().getProcessCpuTime() - c0) / 1e9;
+    System.out.printf(Locale.ROOT, "train from generated tokens: %.2f s wall, %.2f s CPU of this process (all threads, GC included)%n", s, cpu);
+    System.out.printf(Locale.ROOT, "system load average after: %.2f%n", os().getSystemLoadAverage());
     System.out.println("n-grams per order: " + Arrays.toString(trained.report().listedNgrams()));
     System.gc();
     Runtime rt = Runtime.getRuntime();
@@ -67,8 +76,10 @@ public final class TrainBenchmark {
         trained = null;
         System.gc();
         long t1 = System.nanoTime();
+        long c1 = os().getProcessCpuTime();
         trained = new Trainer(options).train(new CorpusFile(text, normaliser, Unit.WORD));
-        System.out.printf(Locale.ROOT, "train from the corpus file (normalised): %.2f s%n", (System.nanoTime() - t1) / 1e9);
+        System.out.printf(Locale.ROOT, "train from the corpus file (normalised): %.2f s wall, %.2f s CPU%n",
+            (System.nanoTime() - t1) / 1e9, (os().getProcessCpuTime() - c1) / 1e9);
         long t2 = System.nanoTime();
         ModelFiles.save(trained.backoffModel(), arpa);
         System.out.printf(Locale.ROOT, "ARPA writing: %.2f s, %d MB%n", (System.nanoTime() - t2) / 1e9, Files.size(arpa) >> 20);
