@@ -96,16 +96,7 @@ public final class Trainer {
         new BackoffModel.Builder(options.order(), options.unit(), options.normalisation());
     for (int id = 3; id < model.size(); id++) builder.tokenId(model.token(id));
 
-    if (options.smoothing() == Smoothing.ADDK) {
-      addStateEntries(counts, builder);
-      metadata(builder, stats, List.of(), List.of());
-      AddKModel m = new AddKModel(counts, builder.build(), options.addK());
-      long[] listed = distinct.clone();
-      if (!containsUnigram(counts, 2)) listed[0]++;
-      TrainingReport report = new TrainingReport(options.smoothing(), options.order(), stats[0], stats[1], stats[2],
-          stats[3], model.size(), distinct, listed, List.of(), List.of(), seconds(startNanos));
-      return new TrainedModel(m, report);
-    }
+    if (options.smoothing() == Smoothing.ADDK) return addK(counts, builder, stats, distinct, model.size(), startNanos);
     Estimator estimator = new Estimator(counts, options, model.size(), 0, 2);
     estimator.estimate();
     metadata(builder, stats, estimator.discounts, estimator.warnings);
@@ -114,6 +105,18 @@ public final class Trainer {
     TrainingReport report = new TrainingReport(options.smoothing(), options.order(), stats[0], stats[1], stats[2],
         stats[3], model.size(), distinct, estimator.listed, estimator.discounts, estimator.warnings,
         seconds(startNanos));
+    return new TrainedModel(m, report);
+  }
+
+  private TrainedModel addK(NgramCounts counts, BackoffModel.Builder builder, long[] stats, long[] distinct,
+      int vocabularySize, long startNanos) {
+    addStateEntries(counts, builder);
+    metadata(builder, stats, List.of(), List.of());
+    AddKModel m = new AddKModel(counts, builder.build(), options.addK());
+    long[] listed = distinct.clone();
+    if (!containsUnigram(counts, 2)) listed[0]++;
+    TrainingReport report = new TrainingReport(options.smoothing(), options.order(), stats[0], stats[1], stats[2],
+        stats[3], vocabularySize, distinct, listed, List.of(), List.of(), seconds(startNanos));
     return new TrainedModel(m, report);
   }
 
