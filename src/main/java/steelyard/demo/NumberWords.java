@@ -39,6 +39,13 @@ final class NumberWords {
     return n % 10 == 0 ? TENS[n / 10] : TENS[n / 10] + " " + ONES[n % 10];
   }
 
+  /** True for the words numbers are spoken with ({@code "forty"}, {@code "oh"}, {@code "hundred"}, …). */
+  static boolean isNumberWord(String word) {
+    for (String w : ONES) if (w.equals(word)) return true;
+    for (String w : TENS) if (!w.isEmpty() && w.equals(word)) return true;
+    return word.equals("oh") || word.equals("hundred") || word.equals("thousand");
+  }
+
   /** A clock time as said aloud: {@code (7, 0) → "seven"}, {@code (6, 5) → "six oh five"}, {@code (9, 30) → "nine thirty"}. */
   static String time(int hour, int minute) {
     String h = belowHundred(hour == 0 ? 12 : hour > 12 ? hour - 12 : hour);

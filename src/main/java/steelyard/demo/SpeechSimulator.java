@@ -28,12 +28,13 @@ final class SpeechSimulator {
   static final double LM_WEIGHT = 9.0;
   static final double WORD_BONUS = 3.0;
 
-  private static final double GAP = 62.0;
-  private static final double SPREAD = 19.0;
+  private static final double GAP = 75.0;
+  private static final double SPREAD = 30.0;
   private static final double SITE_CHANCE = 0.55;
+  private static final double NUMBER_SITE_CHANCE = 0.8;
   private static final double INSERT_CHANCE = 0.035;
-  private static final double PRUNE_CHANCE = 0.05;
-  private static final double NAME_PRUNE_CHANCE = 0.4;
+  private static final double PRUNE_CHANCE = 0.03;
+  private static final double NAME_PRUNE_CHANCE = 0.3;
   private static final int POOL = 60;
   private static final int DRAWS = 400;
 
@@ -104,7 +105,8 @@ final class SpeechSimulator {
         alts = SpeechConfusions.of(ref.get(i));
       }
       boolean name = SpeechConfusions.isGrowerName(ref.get(i));
-      if (!alts.isEmpty() && (name || dice.chance(Math.min(0.9, SITE_CHANCE * noise)))) {
+      double chance = Math.min(0.9, (NumberWords.isNumberWord(ref.get(i)) ? NUMBER_SITE_CHANCE : SITE_CHANCE) * noise);
+      if (!alts.isEmpty() && (name || dice.chance(chance))) {
         sites.add(substitution(ref.subList(i, i + span), i, alts, noise, name));
         i += span;
       } else {

@@ -9,7 +9,8 @@ import java.util.Map;
 /**
  * Test-scope error rates of the generated sets, with an edit distance of its own (unit-cost Levenshtein,
  * Wagner &amp; Fischer 1974), independent of the product's scorer. Words split on whitespace; characters are
- * UTF-16 units (the generated data is ASCII), spaces included.
+ * UTF-16 units (the generated data is ASCII) of the words joined by single spaces (a whitespace run counts as one
+ * character). Run {@code main} to print the figures quoted in the README.
  */
 final class DemoScoring {
   private DemoScoring() {}
@@ -99,6 +100,22 @@ final class DemoScoring {
     acc[at + 2] += r.length;
   }
 
+  /** Character error rate of each configuration alone (OCR sets: one reading per system and line). */
+  static Map<String, Rate> perSystemChar(byte[] nbest, byte[] refs) {
+    Map<String, String> ref = new LinkedHashMap<>();
+    for (Map<String, String> r : SimpleCsv.rows(refs)) ref.put(r.get("utt_id"), r.get("text"));
+    Map<String, long[]> acc = new java.util.TreeMap<>();
+    for (Map<String, String> row : SimpleCsv.rows(nbest)) {
+      String[] r = chars(ref.get(row.get("utt_id")));
+      long[] a = acc.computeIfAbsent(row.get("system"), k -> new long[2]);
+      a[0] += distance(r, chars(row.get("text")));
+      a[1] += r.length;
+    }
+    Map<String, Rate> out = new java.util.TreeMap<>();
+    acc.forEach((k, v) -> out.put(k, new Rate(v[0], v[1])));
+    return out;
+  }
+
   /** Prints the figures of the default generation (used to fill the README). */
   public static void main(String[] args) {
     long seed = args.length > 0 ? Long.parseLong(args[0]) : DemoData.DEFAULT_SEED;
@@ -106,6 +123,7 @@ final class DemoScoring {
     for (String set : new String[] {"voice-dev", "voice-test", "dockets-dev", "dockets-test"}) {
       Figures f = figures(files.get(set + ".nbest.csv"), files.get(set + ".refs.csv"));
       System.out.println(set + ": WER rank1 " + f.firstWord() + ", oracle " + f.oracleWord() + "; CER rank1 " + f.firstChar() + ", oracle " + f.oracleChar());
+      if (set.startsWith("dockets")) System.out.println("  CER per configuration: " + perSystemChar(files.get(set + ".nbest.csv"), files.get(set + ".refs.csv")));
     }
   }
 }
