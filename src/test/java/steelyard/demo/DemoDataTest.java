@@ -230,6 +230,9 @@ class DemoDataTest {
       DemoScoring.Figures f = DemoScoring.figures(full.get(set + ".nbest.csv"), full.get(set + ".refs.csv"));
       System.out.printf(Locale.ROOT, "%s (seed %d): WER rank 1 %s, oracle %s; CER rank 1 %s, oracle %s%n",
           set, DemoData.DEFAULT_SEED, f.firstWord(), f.oracleWord(), f.firstChar(), f.oracleChar());
+      if (set.startsWith("dockets")) {
+        System.out.println("  CER per configuration: " + DemoScoring.perSystemChar(full.get(set + ".nbest.csv"), full.get(set + ".refs.csv")));
+      }
       // Invariant: the oracle is the minimum over a list that includes rank 1.
       assertThat(f.oracleWord().errors()).isLessThanOrEqualTo(f.firstWord().errors());
       assertThat(f.oracleChar().errors()).isLessThanOrEqualTo(f.firstChar().errors());
