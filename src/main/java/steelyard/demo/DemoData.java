@@ -39,6 +39,13 @@ public final class DemoData {
 
   private static final int SPEAKERS = 12;
 
+  /** Scoring rules for the voice sets: the hesitations the recogniser inserts are never an error. */
+  private static final String VOICE_RULES = """
+      # Scoring rules for the voice-log demo sets of the Tallowmere Produce Cooperative (invented).
+      # The recogniser inserts hesitations that no reference contains: never an error, present or absent.
+      optional uh | um
+      """;
+
   private DemoData() {}
 
   /** All generated files by file name (sorted), as UTF-8 bytes with LF line ends. */
@@ -54,6 +61,7 @@ public final class DemoData {
     }
     files.put("corpus-voice.txt", corpus(new VoiceGrammar(new Dice(Dice.derive(seed, "voice-corpus")), true)::sentence, union(voice), sizes.voiceCorpus()));
     files.put("corpus-dockets.txt", corpus(new DocketGrammar(new Dice(Dice.derive(seed, "docket-corpus")))::line, union(dockets), sizes.docketCorpus()));
+    files.put("voice.rules", VOICE_RULES);
     files.put("manifest.txt", manifest(seed, sizes, files));
     SortedMap<String, byte[]> bytes = new TreeMap<>();
     for (Map.Entry<String, String> e : files.entrySet()) bytes.put(e.getKey(), e.getValue().getBytes(StandardCharsets.UTF_8));

@@ -26,6 +26,10 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
+import steelyard.text.NormalisationOptions;
+import steelyard.text.Normaliser;
+import steelyard.text.TokenSequence;
+import steelyard.text.Unit;
 
 class DemoDataTest {
   private static final DemoData.Sizes SMALL = new DemoData.Sizes(30, 400, 20, 200);
@@ -219,6 +223,18 @@ class DemoDataTest {
         for (byte x : b) assertThat(x >= 0x20 && x < 0x7f || x == '\n').as(e.getKey() + " holds printable ASCII and LF only").isTrue();
       }
       assertThat(total).as("bytes of all generated files").isLessThan(6_000_000L);
+    }
+  }
+
+  @Nested
+  class RulesFile {
+    @Test
+    void voiceRulesMakeTheInsertedHesitationsOptionalForTheProjectsNormaliser(@TempDir Path dir) throws IOException {
+      Path rules = Files.write(dir.resolve("voice.rules"), full.get("voice.rules"));
+      Normaliser normaliser = Normaliser.create(new NormalisationOptions(false, false, false, false, rules));
+      TokenSequence tokens = normaliser.tokens("move uh pallet um two", Unit.WORD);
+      assertThat(tokens.tokens()).containsExactly("move", "uh", "pallet", "um", "two");
+      assertThat(tokens.optional()).containsExactly(false, true, false, true, false);
     }
   }
 
