@@ -16,6 +16,7 @@ import java.util.Map;
 import java.util.Set;
 import java.util.SortedMap;
 import java.util.TreeMap;
+import java.util.function.Supplier;
 import steelyard.io.InputException;
 
 /**
@@ -105,7 +106,7 @@ public final class DemoData {
   }
 
   /** {@code sets} lists of {@code perSet} distinct sentences, no sentence in two lists. */
-  private static List<List<String>> distinct(java.util.function.Supplier<String> source, int sets, int perSet) {
+  private static List<List<String>> distinct(Supplier<String> source, int sets, int perSet) {
     Set<String> seen = new HashSet<>();
     List<List<String>> out = new ArrayList<>();
     for (int s = 0; s < sets; s++) {
@@ -126,7 +127,7 @@ public final class DemoData {
   }
 
   /** {@code count} corpus lines from {@code source}, skipping every evaluation sentence. */
-  private static String corpus(java.util.function.Supplier<String> source, Set<String> evaluation, int count) {
+  private static String corpus(Supplier<String> source, Set<String> evaluation, int count) {
     StringBuilder sb = new StringBuilder(count * 48);
     int n = 0;
     while (n < count) {
@@ -146,9 +147,9 @@ public final class DemoData {
     for (int u = 0; u < refs.size(); u++) {
       String id = String.format(Locale.ROOT, "v%s-%04d", set, u + 1);
       SpeechSimulator.Speaker speaker = speakers[dice.below(speakers.length)];
-      List<SpeechSimulator.Hypothesis> hyps = sim.recognise(List.of(SpeechSimulator.splitWords(refs.get(u))), speaker);
+      List<SpeechSimulator.Candidate> hyps = sim.recognise(List.of(SpeechSimulator.splitWords(refs.get(u))), speaker);
       for (int r = 0; r < hyps.size(); r++) {
-        SpeechSimulator.Hypothesis h = hyps.get(r);
+        SpeechSimulator.Candidate h = hyps.get(r);
         nbest.append(CsvText.row(id, Integer.toString(r + 1), h.text(), CsvText.fixed(h.acoustic(), 4), CsvText.fixed(h.lm(), 4), speaker.id()));
       }
       refCsv.append(CsvText.row(id, refs.get(u), speaker.id()));

@@ -1,6 +1,5 @@
 package steelyard.demo;
 
-import java.util.List;
 import java.util.SplittableRandom;
 
 /**
@@ -58,23 +57,7 @@ final class Dice {
     return mean + sd * gaussian();
   }
 
-  /** Poisson draw by Knuth's multiplication method (fine for the small means used here). */
-  int poisson(double mean) {
-    double limit = StrictMath.exp(-mean);
-    double p = 1.0;
-    int k = -1;
-    do {
-      k++;
-      p *= uniform();
-    } while (p > limit);
-    return k;
-  }
-
   <T> T pick(T[] items) {
     return items[below(items.length)];
-  }
-
-  <T> T pick(List<T> items) {
-    return items.get(below(items.size()));
   }
 }

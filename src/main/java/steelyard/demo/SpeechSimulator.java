@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Locale;
 import java.util.Map;
 
 /**
@@ -38,8 +39,8 @@ final class SpeechSimulator {
   private static final int POOL = 60;
   private static final int DRAWS = 400;
 
-  /** A recognised hypothesis with its scores. */
-  record Hypothesis(String text, double acoustic, double lm, double total) {}
+  /** A recognised hypothesis with its scores (natural log; {@code total} is the first-pass ranking score). */
+  record Candidate(String text, double acoustic, double lm, double total) {}
 
   /** A speaker: how clearly they speak (higher: larger acoustic gaps) and how fast (scales the base score). */
   record Speaker(String id, double clarity, double rate) {}
@@ -58,13 +59,13 @@ final class SpeechSimulator {
     for (int i = 0; i < count; i++) {
       double clarity = 0.65 + 0.7 * dice.uniform();
       double rate = 0.9 + 0.25 * dice.uniform();
-      speakers[i] = new Speaker(String.format(java.util.Locale.ROOT, "spk%02d", i + 1), clarity, rate);
+      speakers[i] = new Speaker(String.format(Locale.ROOT, "spk%02d", i + 1), clarity, rate);
     }
     return speakers;
   }
 
   /** The ranked N-best list (1 to {@link #MAX_HYPOTHESES} distinct texts, best first) of one utterance. */
-  List<Hypothesis> recognise(List<String> ref, Speaker speaker) {
+  List<Candidate> recognise(List<String> ref, Speaker speaker) {
     double noise = StrictMath.exp(dice.normal(0, 0.3)) / speaker.clarity();
     double base = baseAcoustic(ref, speaker);
     List<Site> sites = sites(ref, noise);
@@ -76,12 +77,12 @@ final class SpeechSimulator {
       for (int s = 0; s < sites.size(); s++) choice[s] = sample(sites.get(s).offsets());
       add(pool, ref, sites, choice);
     }
-    List<Hypothesis> hyps = new ArrayList<>(pool.size());
+    List<Candidate> hyps = new ArrayList<>(pool.size());
     for (Map.Entry<String, double[]> e : pool.entrySet()) {
       double acoustic = base + e.getValue()[0] + dice.normal(0, 2.5);
       double lm = e.getValue()[1];
       int words = e.getKey().isEmpty() ? 0 : e.getKey().split(" ").length;
-      hyps.add(new Hypothesis(e.getKey(), acoustic, lm, acoustic + LM_WEIGHT * lm + WORD_BONUS * words));
+      hyps.add(new Candidate(e.getKey(), acoustic, lm, acoustic + LM_WEIGHT * lm + WORD_BONUS * words));
     }
     hyps.sort((a, b) -> a.total() != b.total() ? Double.compare(b.total(), a.total()) : a.text().compareTo(b.text()));
     return List.copyOf(hyps.subList(0, Math.min(MAX_HYPOTHESES, hyps.size())));
@@ -183,6 +184,7 @@ final class SpeechSimulator {
     return values.stream().mapToDouble(Double::doubleValue).toArray();
   }
 
+  /** The words of a sentence (single spaces in generated text; empty strings skipped). */
   static String[] splitWords(String sentence) {
     return Arrays.stream(sentence.split(" ")).filter(w -> !w.isEmpty()).toArray(String[]::new);
   }

@@ -124,6 +124,7 @@ class DemoDataTest {
           assertThat(rows.get(r).get("rank")).as(e.getKey()).isEqualTo(Integer.toString(r + 1));
           assertThat(texts.add(rows.get(r).get("text"))).as("%s: duplicate hypothesis '%s'", e.getKey(), rows.get(r).get("text")).isTrue();
           assertThat(rows.get(r).get("group")).isEqualTo(rows.get(0).get("group")).matches("spk\\d\\d");
+          assertThat(rows.get(r).get("text")).as(e.getKey()).matches("[a-z]+( [a-z]+)*");
         }
       }
     }
