@@ -29,13 +29,13 @@ final class SpeechSimulator {
   static final double LM_WEIGHT = 9.0;
   static final double WORD_BONUS = 3.0;
 
-  private static final double GAP = 75.0;
-  private static final double SPREAD = 30.0;
-  private static final double SITE_CHANCE = 0.55;
-  private static final double NUMBER_SITE_CHANCE = 0.8;
+  private static final double GAP = 62.0;
+  private static final double SPREAD = 24.0;
+  private static final double SITE_CHANCE = 0.35;
+  private static final double NUMBER_SITE_CHANCE = 0.5;
   private static final double INSERT_CHANCE = 0.035;
-  private static final double PRUNE_CHANCE = 0.03;
-  private static final double NAME_PRUNE_CHANCE = 0.3;
+  private static final double PRUNE_CHANCE = 0.02;
+  private static final double NAME_PRUNE_CHANCE = 0.2;
   private static final int POOL = 60;
   private static final int DRAWS = 400;
 
@@ -66,7 +66,7 @@ final class SpeechSimulator {
 
   /** The ranked N-best list (1 to {@link #MAX_HYPOTHESES} distinct texts, best first) of one utterance. */
   List<Candidate> recognise(List<String> ref, Speaker speaker) {
-    double noise = StrictMath.exp(dice.normal(0, 0.3)) / speaker.clarity();
+    double noise = StrictMath.exp(dice.normal(0, 0.8)) / speaker.clarity();
     double base = baseAcoustic(ref, speaker);
     List<Site> sites = sites(ref, noise);
     Map<String, double[]> pool = new LinkedHashMap<>();
