@@ -151,6 +151,41 @@ class DemoDataTest {
 
     @ParameterizedTest(name = "[{index}] {arguments}")
     @ValueSource(strings = {"dev", "test"})
+    void acousticScoresGrowWithLengthAndFavourCorrectHypotheses(String set) {
+      Map<String, List<Map<String, String>>> utts = contiguous(SimpleCsv.rows(full.get("voice-" + set + ".nbest.csv")));
+      Map<String, String> refs = new LinkedHashMap<>();
+      for (Map<String, String> r : SimpleCsv.rows(full.get("voice-" + set + ".refs.csv"))) refs.put(r.get("utt_id"), r.get("text"));
+      List<double[]> lengthVsAcoustic = new ArrayList<>();
+      double bestAcousticErrors = 0;
+      double randomPickErrors = 0;
+      for (Map.Entry<String, List<Map<String, String>>> e : utts.entrySet()) {
+        String[] ref = DemoScoring.words(refs.get(e.getKey()));
+        lengthVsAcoustic.add(new double[] {refs.get(e.getKey()).length(), Double.parseDouble(e.getValue().get(0).get("acoustic"))});
+        double best = Double.NEGATIVE_INFINITY;
+        int errorsOfBest = 0;
+        double sum = 0;
+        for (Map<String, String> row : e.getValue()) {
+          int errors = DemoScoring.distance(ref, DemoScoring.words(row.get("text")));
+          sum += errors;
+          double acoustic = Double.parseDouble(row.get("acoustic"));
+          if (acoustic > best) {
+            best = acoustic;
+            errorsOfBest = errors;
+          }
+        }
+        bestAcousticErrors += errorsOfBest;
+        randomPickErrors += sum / e.getValue().size();
+      }
+      // Design targets of the data (its specification): acoustic roughly proportional to length (strongly
+      // negative correlation with the reference's length), and correlated with correctness: picking the
+      // best acoustic score makes fewer errors (by 10 % at least) than a uniformly random pick is expected to.
+      assertThat(pearson(lengthVsAcoustic)).isLessThan(-0.8);
+      System.out.printf(Locale.ROOT, "voice-%s: errors of the best-acoustic pick %.0f, of a random pick %.1f%n", set, bestAcousticErrors, randomPickErrors);
+      assertThat(bestAcousticErrors).isLessThan(0.9 * randomPickErrors);
+    }
+
+    @ParameterizedTest(name = "[{index}] {arguments}")
+    @ValueSource(strings = {"dev", "test"})
     void everyUtteranceHasExactlyOneReferenceOfLowercaseWords(String set) {
       Map<String, List<Map<String, String>>> utts = contiguous(SimpleCsv.rows(full.get("voice-" + set + ".nbest.csv")));
       List<Map<String, String>> refs = SimpleCsv.rows(full.get("voice-" + set + ".refs.csv"));
@@ -263,6 +298,21 @@ class DemoDataTest {
         assertThat(f.oracleChar().value()).isLessThan(0.8 * f.firstChar().value());
       }
     }
+  }
+
+  /** Pearson's sample correlation coefficient of (x, y) pairs (textbook formula). */
+  private static double pearson(List<double[]> xy) {
+    double mx = xy.stream().mapToDouble(p -> p[0]).average().orElseThrow();
+    double my = xy.stream().mapToDouble(p -> p[1]).average().orElseThrow();
+    double sxy = 0;
+    double sxx = 0;
+    double syy = 0;
+    for (double[] p : xy) {
+      sxy += (p[0] - mx) * (p[1] - my);
+      sxx += (p[0] - mx) * (p[0] - mx);
+      syy += (p[1] - my) * (p[1] - my);
+    }
+    return sxy / Math.sqrt(sxx * syy);
   }
 
   private static Map<String, List<Map<String, String>>> contiguous(List<Map<String, String>> rows) {
