@@ -29,13 +29,19 @@ final class SpeechSimulator {
   static final double LM_WEIGHT = 9.0;
   static final double WORD_BONUS = 3.0;
 
+  /** Log-normal spread of the per-utterance noise (background, channel): wide, so some utterances are hard. */
+  private static final double UTTERANCE_NOISE = 0.8;
+  /** Acoustic offset of an alternative per unit of dissimilarity, before noise. */
   private static final double GAP = 62.0;
+  /** Standard deviation of an alternative's acoustic offset at noise 1. */
   private static final double SPREAD = 24.0;
   private static final double SITE_CHANCE = 0.35;
   private static final double NUMBER_SITE_CHANCE = 0.5;
   private static final double INSERT_CHANCE = 0.035;
   private static final double PRUNE_CHANCE = 0.02;
   private static final double NAME_PRUNE_CHANCE = 0.2;
+  private static final double HYPOTHESIS_JITTER = 2.5;
+  /** Distinct candidates gathered before ranking, and the most draws spent gathering them. */
   private static final int POOL = 60;
   private static final int DRAWS = 400;
 
@@ -66,7 +72,7 @@ final class SpeechSimulator {
 
   /** The ranked N-best list (1 to {@link #MAX_HYPOTHESES} distinct texts, best first) of one utterance. */
   List<Candidate> recognise(List<String> ref, Speaker speaker) {
-    double noise = StrictMath.exp(dice.normal(0, 0.8)) / speaker.clarity();
+    double noise = StrictMath.exp(dice.normal(0, UTTERANCE_NOISE)) / speaker.clarity();
     double base = baseAcoustic(ref, speaker);
     List<Site> sites = sites(ref, noise);
     Map<String, double[]> pool = new LinkedHashMap<>();
@@ -79,7 +85,7 @@ final class SpeechSimulator {
     }
     List<Candidate> hyps = new ArrayList<>(pool.size());
     for (Map.Entry<String, double[]> e : pool.entrySet()) {
-      double acoustic = base + e.getValue()[0] + dice.normal(0, 2.5);
+      double acoustic = base + e.getValue()[0] + dice.normal(0, HYPOTHESIS_JITTER);
       double lm = e.getValue()[1];
       int words = e.getKey().isEmpty() ? 0 : e.getKey().split(" ").length;
       hyps.add(new Candidate(e.getKey(), acoustic, lm, acoustic + LM_WEIGHT * lm + WORD_BONUS * words));
