@@ -2,10 +2,8 @@ package steelyard.demo;
 
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.AtomicMoveNotSupportedException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.nio.file.StandardCopyOption;
 import java.util.ArrayList;
 import java.util.Collections;
 import java.util.HashSet;
@@ -17,6 +15,7 @@ import java.util.Set;
 import java.util.SortedMap;
 import java.util.TreeMap;
 import java.util.function.Supplier;
+import steelyard.io.AtomicOutput;
 import steelyard.io.InputException;
 
 /**
@@ -70,39 +69,25 @@ public final class DemoData {
   }
 
   /**
-   * Generates and writes every file into {@code dir} (created if needed), each atomically (temporary file in
-   * the same directory, then moved into place). Returns the paths written, in file-name order.
+   * Generates and writes every file into {@code dir} (created if needed), each through {@link AtomicOutput}
+   * (temporary file beside the target, then moved into place). Returns the paths written, in file-name order.
    *
-   * @throws InputException when the directory cannot be created or written
+   * @throws InputException when the directory cannot be created or a file cannot be written
    */
   public static List<Path> write(Path dir, long seed, Sizes sizes) {
     SortedMap<String, byte[]> files = generate(seed, sizes);
-    List<Path> written = new ArrayList<>();
     try {
       Files.createDirectories(dir);
-      for (Map.Entry<String, byte[]> e : files.entrySet()) {
-        Path target = dir.resolve(e.getKey());
-        Path tmp = dir.resolve("." + e.getKey() + ".tmp");
-        try {
-          Files.write(tmp, e.getValue());
-          moveIntoPlace(tmp, target);
-        } finally {
-          Files.deleteIfExists(tmp);
-        }
-        written.add(target);
-      }
     } catch (IOException ex) {
-      throw InputException.inFile(dir, "cannot write the demo data (" + ex + ")", "a directory that can be created and written").withCause(ex);
+      throw InputException.inFile(dir, "cannot create the output directory (" + ex + ")", "a directory that can be created and written").withCause(ex);
+    }
+    List<Path> written = new ArrayList<>();
+    for (Map.Entry<String, byte[]> e : files.entrySet()) {
+      Path target = dir.resolve(e.getKey());
+      AtomicOutput.writeBytes(target, out -> out.write(e.getValue()));
+      written.add(target);
     }
     return written;
-  }
-
-  private static void moveIntoPlace(Path tmp, Path target) throws IOException {
-    try {
-      Files.move(tmp, target, StandardCopyOption.ATOMIC_MOVE, StandardCopyOption.REPLACE_EXISTING);
-    } catch (AtomicMoveNotSupportedException e) {
-      Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING);
-    }
   }
 
   /** {@code sets} lists of {@code perSet} distinct sentences, no sentence in two lists. */
@@ -181,11 +166,13 @@ public final class DemoData {
       int shared = smudged.equals(ref) ? 0 : 1;
       List<OcrSimulator.Reading> readings = new ArrayList<>();
       for (OcrSimulator.Profile p : OcrSimulator.PROFILES) readings.add(sim.read(p, smudged, damage, shared));
+      // Each configuration's one reading is its own best (rank 1); rows go most confident first, so the
+      // recogniser's choice (smallest rank, ties by file order) is the most confident configuration.
       readings.sort((a, b) -> a.meanWordConf() != b.meanWordConf() ? Double.compare(b.meanWordConf(), a.meanWordConf()) : a.system().compareTo(b.system()));
       for (int r = 0; r < readings.size(); r++) {
         OcrSimulator.Reading h = readings.get(r);
         double mwc = Double.parseDouble(CsvText.fixed(h.meanWordConf(), 2));
-        nbest.append(CsvText.row(id, Integer.toString(r + 1), h.system(), h.text(), CsvText.fixed(StrictMath.log(mwc / 100.0), 6), CsvText.fixed(mwc, 2), group));
+        nbest.append(CsvText.row(id, "1", h.system(), h.text(), CsvText.fixed(StrictMath.log(mwc / 100.0), 6), CsvText.fixed(mwc, 2), group));
       }
       refCsv.append(CsvText.row(id, ref, group));
     }

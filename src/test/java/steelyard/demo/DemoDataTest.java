@@ -25,7 +25,14 @@ import org.junit.jupiter.api.Nested;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.CsvSource;
 import org.junit.jupiter.params.provider.ValueSource;
+import steelyard.io.FeatureSpec;
+import steelyard.io.HypothesesReader;
+import steelyard.io.ImportOptions;
+import steelyard.io.Reference;
+import steelyard.io.ReferencesReader;
+import steelyard.io.UtteranceHypotheses;
 import steelyard.text.NormalisationOptions;
 import steelyard.text.Normaliser;
 import steelyard.text.TokenSequence;
@@ -202,7 +209,7 @@ class DemoDataTest {
   class DocketSets {
     @ParameterizedTest(name = "[{index}] {arguments}")
     @ValueSource(strings = {"dev", "test"})
-    void everyLineHasOneReadingPerConfigurationRankedByConfidence(String set) {
+    void everyLineHasOneReadingPerConfigurationMostConfidentFirst(String set) {
       byte[] file = full.get("dockets-" + set + ".nbest.csv");
       assertThat(SimpleCsv.header(file)).containsExactly("utt_id", "rank", "system", "text", "confidence", "mean_word_conf", "group");
       Map<String, List<Map<String, String>>> lines = contiguous(SimpleCsv.rows(file));
@@ -216,7 +223,7 @@ class DemoDataTest {
         double previous = 101;
         for (int r = 0; r < rows.size(); r++) {
           Map<String, String> row = rows.get(r);
-          assertThat(row.get("rank")).isEqualTo(Integer.toString(r + 1));
+          assertThat(row.get("rank")).as("one reading per configuration: its own rank 1").isEqualTo("1");
           double conf = Double.parseDouble(row.get("mean_word_conf"));
           assertThat(conf).isBetween(0.0, 100.0).isLessThanOrEqualTo(previous);
           previous = conf;
@@ -259,6 +266,36 @@ class DemoDataTest {
         for (byte x : b) assertThat(x >= 0x20 && x < 0x7f || x == '\n').as(e.getKey() + " holds printable ASCII and LF only").isTrue();
       }
       assertThat(total).as("bytes of all generated files").isLessThan(6_000_000L);
+    }
+  }
+
+  @Nested
+  class ProjectImporter {
+    @ParameterizedTest(name = "[{index}] {arguments}")
+    @CsvSource({
+      "voice-dev, 'acoustic,lm'",
+      "voice-test, 'acoustic,lm'",
+      "dockets-dev, 'confidence,mean_word_conf:linear:scale=0.01'",
+      "dockets-test, 'confidence,mean_word_conf:linear:scale=0.01'"
+    })
+    void readsTheCheckedInFilesStrictlyWithoutWarnings(String set, String features) {
+      Path dir = Path.of("sample-hypotheses");
+      List<String> warnings = new ArrayList<>();
+      ImportOptions options = new ImportOptions(FeatureSpec.parseList(features), null, 0, warnings::add, skipped -> warnings.add(skipped.toString()));
+      Map<String, Reference> refs = ReferencesReader.readAll(dir.resolve(set + ".refs.csv"), options);
+      int utterances = 0;
+      try (HypothesesReader reader = HypothesesReader.open(dir.resolve(set + ".nbest.csv"), options)) {
+        while (reader.hasNext()) {
+          UtteranceHypotheses u = reader.next();
+          utterances++;
+          assertThat(refs).containsKey(u.uttId());
+          assertThat(u.first().rank()).isEqualTo(1);
+          assertThat(u.first().group()).isEqualTo(refs.get(u.uttId()).group());
+        }
+        assertThat(reader.rowsSkipped()).isZero();
+      }
+      assertThat(utterances).isEqualTo(refs.size());
+      assertThat(warnings).isEmpty();
     }
   }
 
