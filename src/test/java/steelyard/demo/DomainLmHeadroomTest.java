@@ -70,7 +70,7 @@ class DomainLmHeadroomTest {
 
   /**
    * Interpolated absolute-discounting bigram (Ney, Essen &amp; Kneser 1994) with D = 0.7 and an add-0.1 unigram;
-   * a plain map-based test helper, natural log.
+   * plain maps in test scope, natural log.
    */
   private static final class Bigram {
     private final Map<String, Integer> unigram = new HashMap<>();
