@@ -55,9 +55,13 @@ public record Discounts(int order, long[] countOfCounts, double[] values, boolea
       } else {
         d[k - 1] = DEFAULT_MKN[k - 1];
         fb[k - 1] = true;
+        String name = "D" + (k == 3 ? "3+" : Integer.toString(k));
+        String reason = zeroCount(n, k) != 0
+            ? "undefined since n" + zeroCount(n, k) + " = 0"
+            : String.format(Locale.ROOT, "%.6f, not in (0, %d]", value, k);
         warnings.add(String.format(Locale.ROOT,
-            "order %d: discount D%s from count-of-counts n1=%d n2=%d n3=%d n4=%d is %s, not in (0, %d]; using the default %.1f",
-            order, k == 3 ? "3+" : Integer.toString(k), n[0], n[1], n[2], n[3], describe(value), k, DEFAULT_MKN[k - 1]));
+            "order %d: discount %s from count-of-counts n1=%d n2=%d n3=%d n4=%d is %s; using the default %.1f",
+            order, name, n[0], n[1], n[2], n[3], reason, DEFAULT_MKN[k - 1]));
       }
     }
     return new Discounts(order, n, d, fb);
@@ -72,8 +76,8 @@ public record Discounts(int order, long[] countOfCounts, double[] values, boolea
     boolean valid = n[0] > 0 && value > 0 && value <= 1;
     if (!valid) {
       warnings.add(String.format(Locale.ROOT,
-          "order %d: discount D from count-of-counts n1=%d n2=%d is %s, not in (0, 1]; using the default %.1f",
-          order, n[0], n[1], describe(value), DEFAULT_ABS));
+          "order %d: discount D from count-of-counts n1=%d n2=%d is %s; using the default %.1f",
+          order, n[0], n[1], n[0] == 0 ? "undefined since n1 = 0" : describe(value) + ", not in (0, 1]", DEFAULT_ABS));
     }
     return new Discounts(order, n, new double[] {valid ? value : DEFAULT_ABS}, new boolean[] {!valid});
   }
@@ -92,6 +96,12 @@ public record Discounts(int order, long[] countOfCounts, double[] values, boolea
 
   /** Default for an invalid absolute discount: 0.5. */
   public static final double DEFAULT_ABS = 0.5;
+
+  /** The first of n1, n2, n_k, n_k+1 that is zero (its index 1 … 4), or 0 when none is. */
+  private static int zeroCount(long[] n, int k) {
+    for (int i : new int[] {1, 2, k, k + 1}) if (n[i - 1] == 0) return i;
+    return 0;
+  }
 
   private static String describe(double v) {
     return Double.isFinite(v) ? String.format(Locale.ROOT, "%.6f", v) : "undefined";
