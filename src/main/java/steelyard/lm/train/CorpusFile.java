@@ -5,7 +5,6 @@ import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.nio.file.Path;
 import java.util.Objects;
-import java.util.function.LongConsumer;
 import steelyard.io.InputException;
 import steelyard.io.InputFiles;
 import steelyard.text.Normaliser;
@@ -20,18 +19,11 @@ public final class CorpusFile implements SentenceSource {
   private final Path file;
   private final Normaliser normaliser;
   private final Unit unit;
-  private LongConsumer bytesRead = n -> {};
 
   public CorpusFile(Path file, Normaliser normaliser, Unit unit) {
     this.file = Objects.requireNonNull(file, "file");
     this.normaliser = Objects.requireNonNull(normaliser, "normaliser");
     this.unit = Objects.requireNonNull(unit, "unit");
-  }
-
-  /** Reports the approximate number of characters read so far, every 64 k lines (for progress display). */
-  public CorpusFile onProgress(LongConsumer charsRead) {
-    this.bytesRead = Objects.requireNonNull(charsRead);
-    return this;
   }
 
   @Override
@@ -42,15 +34,11 @@ public final class CorpusFile implements SentenceSource {
   @Override
   public void forEach(Sink sink) {
     long line = 0;
-    long chars = 0;
     try (BufferedReader in = InputFiles.open(file)) {
       for (String raw = in.readLine(); raw != null; raw = in.readLine()) {
         line++;
-        chars += raw.length() + 1;
-        if ((line & 0xffff) == 0) bytesRead.accept(chars);
         sink.accept(line, normaliser.tokenList(raw, unit));
       }
-      bytesRead.accept(chars);
     } catch (IOException e) {
       throw InputException.at(file, line + 1, "cannot read: " + e.getMessage(), "a readable text file").withCause(e);
     } catch (UncheckedIOException e) {
