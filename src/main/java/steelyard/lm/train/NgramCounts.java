@@ -117,14 +117,13 @@ final class NgramCounts {
       }
       if (k > 0) {
         int[] parentSuffix = m.suffixLinks[k - 1].elements();
-        for (int g = 0; g < total; g++) {
-          int ps = parentSuffix[par[g]];
-          int shard = ps < 0 ? wd[g] % n : shardOf(offset[k - 2], ps);
-          int local = ps < 0 ? -1 : ps - offset[k - 2][shard];
-          int e = shards[shard].index[k - 1].get(key(local, wd[g]));
-          if (e < 0) throw new IllegalStateException("suffix of an n-gram missing at order " + (k + 1));
-          sf[g] = e + offset[k - 1][shard];
-        }
+        int level = k;
+        // read-only look-ups into the shards' tables, independent per entry: split over the cores
+        java.util.stream.IntStream.range(0, (total + CHUNK - 1) / CHUNK).parallel().forEach(chunk -> {
+          for (int g = chunk * CHUNK, to = Math.min(total, g + CHUNK); g < to; g++) {
+            sf[g] = mergedSuffix(shards, offset, level, parentSuffix[par[g]], wd[g]);
+          }
+        });
       } else {
         java.util.Arrays.fill(sf, -1);
       }
@@ -141,6 +140,18 @@ final class NgramCounts {
     for (NgramCounts c : shards) c.index = null;
     m.freeze();
     return m;
+  }
+
+  private static final int CHUNK = 1 << 16;
+
+  /** Global index of (suffix of the parent, w) at 0-based level k, looked up in the shard of its first token. */
+  private static int mergedSuffix(NgramCounts[] shards, int[][] offset, int k, int parentSuffix, int w) {
+    int n = shards.length;
+    int shard = parentSuffix < 0 ? w % n : shardOf(offset[k - 2], parentSuffix);
+    int local = parentSuffix < 0 ? -1 : parentSuffix - offset[k - 2][shard];
+    int e = shards[shard].index[k - 1].get(key(local, w));
+    if (e < 0) throw new IllegalStateException("suffix of an n-gram missing at order " + (k + 1));
+    return e + offset[k - 1][shard];
   }
 
   private static int shardOf(int[] offsets, int global) {
