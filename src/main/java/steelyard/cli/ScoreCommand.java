@@ -1,13 +1,143 @@
 package steelyard.cli;
 
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.concurrent.Callable;
+import picocli.CommandLine;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import steelyard.eval.Bootstrap;
+import steelyard.eval.CorpusScore;
+import steelyard.eval.CorpusScorer;
+import steelyard.eval.MissingHypothesisPolicy;
+import steelyard.eval.Pick;
+import steelyard.io.AtomicOutput;
+import steelyard.io.HypothesesReader;
+import steelyard.io.ImportOptions;
+import steelyard.io.InputException;
+import steelyard.io.Reference;
+import steelyard.io.ReferencesReader;
+import steelyard.report.JsonOutput;
+import steelyard.report.OutputPaths;
+import steelyard.report.ScoreContext;
+import steelyard.report.ScoreReport;
+import steelyard.text.Normaliser;
+import steelyard.text.Unit;
 
-/** Score hypotheses against references: WER/CER with confidence intervals. */
-@Command(name = "score", mixinStandardHelpOptions = true, description = "Score hypotheses against references: WER/CER with confidence intervals.")
+/**
+ * {@code steelyard score}: one pick of hypotheses against references, with a bootstrap interval, groups, the most
+ * frequent errors and what is missing. Reads everything before writing anything, so bad input writes nothing.
+ */
+@Command(
+    name = "score",
+    mixinStandardHelpOptions = true,
+    description = {
+      "Score hypotheses against references: WER/CER with a 95% bootstrap interval, sentence error rate, groups,"
+          + " most frequent errors and missing utterances.",
+      "The plain-text report goes to stdout (to stderr when --json is '-')."
+    })
 public final class ScoreCommand implements Callable<Integer> {
+  @Mixin HypothesesInput hypotheses;
+  @Mixin NormalisationInput normalisation;
+  @Mixin RunInput run;
+
+  @Option(names = "--refs", required = true, paramLabel = "FILE", description = "References CSV (utt_id,text[,group]; .gz accepted).")
+  Path refs;
+
+  @Option(names = "--pick", paramLabel = "first|oracle", defaultValue = "first",
+      description = "Hypothesis scored per utterance: first = the recogniser's rank 1, oracle = fewest errors (default ${DEFAULT-VALUE}).")
+  Pick pick;
+
+  @Option(names = "--missing-hyp", paramLabel = "all-deletions|exclude", defaultValue = "all-deletions",
+      converter = MissingPolicyConverter.class,
+      description = "How a reference without any hypothesis counts (default ${DEFAULT-VALUE}).")
+  MissingHypothesisPolicy missing;
+
+  @Option(names = "--resamples", paramLabel = "N", defaultValue = "1000", description = "Bootstrap resamples (default ${DEFAULT-VALUE}).")
+  int resamples;
+
+  @Option(names = "--top", paramLabel = "K", defaultValue = "10", description = "How many frequent substitutions, deletions and insertions to list (default ${DEFAULT-VALUE}).")
+  int top;
+
+  @Option(names = "--json", paramLabel = "FILE|-", description = "Write the JSON summary to FILE, or to stdout with '-'.")
+  Path json;
+
+  @Option(names = "--csv", paramLabel = "FILE", description = "Write the per-utterance table as CSV.")
+  Path csv;
+
+  @Option(names = "--spreadsheet-safe", paramLabel = "true|false", arity = "1", defaultValue = "true",
+      description = "In the CSV, prefix cells starting with = + - @ tab or CR with an apostrophe (default ${DEFAULT-VALUE}).")
+  boolean spreadsheetSafe;
+
+  @CommandLine.Spec CommandLine.Model.CommandSpec spec;
+
   @Override
   public Integer call() {
-    throw new UnsupportedOperationException("'score' is not built yet");
+    checkOptions(resamples, top);
+    LinkedHashMap<String, Path> outputs = new LinkedHashMap<>();
+    outputs.put("--json", json);
+    outputs.put("--csv", csv);
+    OutputPaths.refuseClashes(outputs, Arrays.asList(hypotheses.hyps, refs, normalisation.rules));
+
+    List<String> warnings = new ArrayList<>();
+    ImportOptions options = collecting(hypotheses.importOptions(), warnings);
+    Normaliser normaliser = Normaliser.create(normalisation.options());
+    Unit unit = normalisation.unit;
+    LinkedHashMap<String, Reference> refMap = ReferencesReader.readAll(refs, withoutFeatures(options));
+    CorpusScorer scorer = new CorpusScorer(raw -> normaliser.tokens(raw, unit),
+        new CorpusScorer.Settings(pick, missing, top, csv != null));
+    CorpusScore score;
+    try (HypothesesReader reader = HypothesesReader.open(hypotheses.hyps, options)) {
+      score = scorer.score(refMap, reader);
+    }
+    Bootstrap.Interval ci = Bootstrap.corpusRate(score.table().includedErrors(), score.table().includedReferenceTokens(),
+        resamples, run.seed, run.effectiveThreads());
+    ScoreContext context = new ScoreContext(hypotheses.hyps.toString(), refs.toString(), unit, run.seed, resamples, ci,
+        hypotheses.skipped, warnings);
+
+    if (csv != null) AtomicOutput.writeText(csv, out -> ScoreReport.csv(score, out, spreadsheetSafe));
+    if (json != null) JsonOutput.write(json, ScoreReport.json(score, context));
+    PrintWriter text = json != null && json.toString().equals("-") ? spec.commandLine().getErr() : spec.commandLine().getOut();
+    text.print(ScoreReport.text(score, context));
+    text.flush();
+    return Main.OK;
+  }
+
+  /** Validates the counts every scoring command takes. */
+  static void checkOptions(int resamples, int top) {
+    if (resamples < 1) throw InputException.option("--resamples", "must be at least 1, got " + resamples, "a positive number such as 1000");
+    if (top < 0) throw InputException.option("--top", "must not be negative, got " + top, "0 or more");
+  }
+
+  /** The same import options, with warnings also collected for the JSON summary. */
+  static ImportOptions collecting(ImportOptions base, List<String> sink) {
+    return new ImportOptions(base.features(), base.primarySystem(), base.maxBadRows(),
+        w -> {
+          synchronized (sink) {
+            sink.add(w);
+          }
+          base.warnings().accept(w);
+        },
+        base.skipped());
+  }
+
+  /** The same options with no feature columns (a references file has none). */
+  static ImportOptions withoutFeatures(ImportOptions o) {
+    return new ImportOptions(List.of(), o.primarySystem(), o.maxBadRows(), o.warnings(), o.skipped());
+  }
+
+  /** Reads {@code all-deletions} or {@code exclude}. */
+  static final class MissingPolicyConverter implements CommandLine.ITypeConverter<MissingHypothesisPolicy> {
+    @Override
+    public MissingHypothesisPolicy convert(String value) {
+      MissingHypothesisPolicy p = MissingHypothesisPolicy.fromLabel(value);
+      if (p == null) throw new CommandLine.TypeConversionException("'" + value + "' is not one of all-deletions, exclude");
+      return p;
+    }
   }
 }
