@@ -18,12 +18,15 @@ package steelyard.eval;
  *   <li>up: deletion of {@code ref[i-1]};</li>
  *   <li>left: insertion of {@code hyp[j-1]}.</li>
  * </ol>
- * The counts path ({@link #count}, {@link #measure}) does not store a backtrace table: it carries, in the
- * forward pass, the deletion count of the path that this backtrace would take from each cell (every cell's
- * choice depends only on its three neighbours' costs, so the forward choice and the backward choice are the
- * same). From the cost, the deletion count and the two lengths the other counts follow:
- * {@code I = D + |hyp| − |ref|}, {@code S = cost − D − I}, {@code C = |ref| − S − D}. {@link #alignment} uses a
- * full cost table and walks it back with the same preference, so its counts always equal {@link #count}'s.
+ * The counts path ({@link #count}, {@link #measure}) does not store an {@code int} table. For references of
+ * at most 64 tokens it runs the bit-parallel recurrence (Myers 1999, global form as in Hyyrö 2001), keeping two
+ * 64-bit difference words per hypothesis token from which any cell's cost is recomputed, and walks that
+ * back with the preference above ({@code BitParallelCounts}). For longer references it carries, in a two-row
+ * forward pass, the deletion count of the path the backtrace would take from each cell (each cell's choice
+ * depends only on its three neighbours' costs, so the forward and the backward choice coincide); from the
+ * cost, the deletion count and the two lengths the other counts follow: {@code I = D + |hyp| − |ref|},
+ * {@code S = cost − D − I}, {@code C = |ref| − S − D}. {@link #alignment} fills a full cost table and walks it
+ * back with the same preference. All three give identical counts (tested).
  *
  * <h2>Optional tokens</h2>
  * Tokens flagged optional (hesitations, noise markers from the rules file) cost nothing whether present or
@@ -32,8 +35,9 @@ package steelyard.eval;
  * insertion of them; the tie-breaking above then applies to the remaining tokens.
  *
  * <h2>Memory</h2>
- * Work storage is grown on demand and reused: the distance and counts paths keep two {@code int} rows of
- * {@code |hyp| + 1} entries (8 bytes per hypothesis token); {@link #alignment} keeps a full
+ * Work storage is grown on demand and reused: the counts path keeps two {@code long} words per hypothesis
+ * token (16 bytes) for references up to 64 tokens, and two {@code int} rows of {@code |hyp| + 1} entries
+ * (8 bytes per hypothesis token) beyond; {@link #alignment} keeps a full
  * {@code (|ref| + 1) × (|hyp| + 1)} {@code int} table (4 bytes per cell; a 1000 × 1000 pair needs about 4 MB),
  * so it is meant for per-utterance reports, not for hot loops. Sequence length products above
  * {@link Integer#MAX_VALUE} cells are rejected by {@link #alignment}. In steady state {@link #distance} and
@@ -50,6 +54,8 @@ public final class Aligner {
   private int[] refMap = new int[32];
   private int[] hypMap = new int[32];
 
+  private final BitParallelCounts bits = new BitParallelCounts();
+
   private int lastCorrect;
   private int lastSubstitutions;
   private int lastDeletions;
@@ -64,6 +70,14 @@ public final class Aligner {
 
   /** Edit distance between the first {@code refLen} tokens of {@code ref} and the first {@code hypLen} of {@code hyp}. */
   public int distance(int[] ref, int refLen, int[] hyp, int hypLen) {
+    if (refLen == 0) return hypLen;
+    if (hypLen == 0) return refLen;
+    if (refLen <= BitParallelCounts.MAX_REF) return bits.distance(ref, refLen, hyp, hypLen);
+    return distanceScalar(ref, refLen, hyp, hypLen);
+  }
+
+  // Two-row Wagner-Fischer for references longer than one machine word.
+  int distanceScalar(int[] ref, int refLen, int[] hyp, int hypLen) {
     if (refLen == 0) return hypLen;
     if (hypLen == 0) return refLen;
     int[] row = costRow = grow(costRow, hypLen + 1);
@@ -120,6 +134,19 @@ public final class Aligner {
 
   /** As {@link #measure(int[], int[])} on the first {@code refLen} and {@code hypLen} tokens. */
   public int measure(int[] ref, int refLen, int[] hyp, int hypLen) {
+    if (refLen > 0 && hypLen > 0 && refLen <= BitParallelCounts.MAX_REF) {
+      int cost = bits.measure(ref, refLen, hyp, hypLen);
+      lastCorrect = bits.correct;
+      lastSubstitutions = bits.substitutions;
+      lastDeletions = bits.deletions;
+      lastInsertions = bits.insertions;
+      return cost;
+    }
+    return measureScalar(ref, refLen, hyp, hypLen);
+  }
+
+  // Forward pass over two rows (cost and deletions of the preferred path); any length.
+  int measureScalar(int[] ref, int refLen, int[] hyp, int hypLen) {
     int cost;
     int del;
     if (refLen == 0 || hypLen == 0) {

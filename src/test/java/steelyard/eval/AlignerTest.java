@@ -46,8 +46,9 @@ class AlignerTest {
       SplittableRandom rnd = new SplittableRandom(seed);
       for (int trial = 0; trial < 5000; trial++) {
         int alphabet = 1 + rnd.nextInt(trial % 3 == 0 ? 3 : 40);
-        int[] ref = randomSeq(rnd, 25, alphabet);
-        int[] hyp = randomSeq(rnd, 25, alphabet);
+        int maxLen = trial % 10 == 0 ? 90 : 25;
+        int[] ref = randomSeq(rnd, maxLen, alphabet);
+        int[] hyp = randomSeq(rnd, maxLen, alphabet);
         int expected = reference.apply(asCodePoints(ref), asCodePoints(hyp));
         String msg = "seed " + seed + " trial " + trial;
         assertThat(aligner.distance(ref, hyp)).as(msg).isEqualTo(expected);
@@ -185,6 +186,35 @@ class AlignerTest {
         assertThat(nextRef).as(msg).isEqualTo(ref.length);
         assertThat(nextHyp).as(msg).isEqualTo(hyp.length);
       }
+    }
+
+    @Test
+    void bitParallelScalarAndTablePathsGiveIdenticalCounts() {
+      // Invariant: the three implementations follow the same documented tie-breaking.
+      SplittableRandom rnd = new SplittableRandom(SEED + 5);
+      for (int t = 0; t < 3000; t++) {
+        int alphabet = 1 + rnd.nextInt(t % 2 == 0 ? 4 : 30);
+        int[] ref = randomSeq(rnd, t % 5 == 0 ? 70 : 20, alphabet);
+        int[] hyp = randomSeq(rnd, t % 5 == 0 ? 70 : 20, alphabet);
+        String msg = "seed " + (SEED + 5) + " trial " + t;
+        EditCounts fast = aligner.count(ref, hyp);
+        int cost = aligner.measureScalar(ref, ref.length, hyp, hyp.length);
+        EditCounts scalar = new EditCounts(aligner.lastCorrect(), aligner.lastSubstitutions(), aligner.lastDeletions(), aligner.lastInsertions());
+        assertThat(scalar).as(msg).isEqualTo(fast);
+        assertThat((long) cost).as(msg).isEqualTo(fast.errors());
+        assertThat(aligner.alignment(ref, hyp).counts()).as(msg).isEqualTo(fast);
+        assertThat(aligner.distanceScalar(ref, ref.length, hyp, hyp.length)).as(msg).isEqualTo(aligner.distance(ref, hyp));
+      }
+    }
+
+    @Test
+    void handlesTokenIdsOfAnyValue() {
+      int[] ref = {Integer.MIN_VALUE, -1, 0, Integer.MAX_VALUE};
+      int[] hyp = {-1, 0, 7, Integer.MAX_VALUE};
+      // Worked by hand: D(MIN) C(-1) C(0) I(7) C(MAX), cost 2 (three substitutions would cost 3).
+      assertThat(aligner.count(ref, hyp)).isEqualTo(new EditCounts(3, 0, 1, 1));
+      assertThat(aligner.alignment(ref, hyp).toString()).isEqualTo("D C C I C");
+      assertThat(aligner.distance(ref, hyp)).isEqualTo(2);
     }
 
     @Test
