@@ -12,16 +12,22 @@ import java.util.Arrays;
  * equal; a model may shorten a history to the longest context it actually has, so equal states always score
  * every continuation identically (what a lattice search needs for recombination).
  *
- * <p>Memory: one {@code int[order-1]} plus 16 bytes of fields. Not thread-safe; share models, not states.
+ * <p>Memory: two {@code int[order-1]} plus about 24 bytes of fields. Not thread-safe; share models, not states.
  */
 public final class LmState {
   final int[] history;
+  /**
+   * For models built on {@link BackoffModel}-style storage: {@code contextIndex[j]} is the entry index of the
+   * history suffix of length j+1 in the order-(j+1) table (so index 0 is the last word's unigram).
+   */
+  final int[] contextIndex;
   int length;
   /** Backend-specific position of this history in the model's storage (e.g. a context entry index). */
   long handle;
 
   LmState(int capacity) {
     this.history = new int[Math.max(0, capacity)];
+    this.contextIndex = new int[Math.max(0, capacity)];
   }
 
   /** Number of history tokens kept (0 … order−1). */
@@ -38,6 +44,7 @@ public final class LmState {
   /** Makes this state a copy of {@code other} (same model). */
   public void copyFrom(LmState other) {
     System.arraycopy(other.history, 0, history, 0, other.length);
+    System.arraycopy(other.contextIndex, 0, contextIndex, 0, other.length);
     length = other.length;
     handle = other.handle;
   }
