@@ -104,7 +104,7 @@ public final class CompareCommand implements Callable<Integer> {
     CorpusScore a = scoreFile(scorer, refMap, hyps.get(0), options);
     CorpusScore b = scoreFile(scorer, refMap, hyps.get(1), options);
     PairedComparison comparison = PairedComparison.of(a, b, resamples, run.seed, run.effectiveThreads());
-    CompareReport.CompareRun report = new CompareReport.CompareRun(refs.toString(), unit,
+    CompareReport.CompareRun report = new CompareReport.CompareRun(refs.toString(), unit, normaliser.describe(),
         new CompareReport.SystemRun(display.get(0), hyps.get(0).toString(), a),
         new CompareReport.SystemRun(display.get(1), hyps.get(1).toString(), b),
         comparison, run.seed, skipped, warnings);

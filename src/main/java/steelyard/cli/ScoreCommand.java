@@ -97,7 +97,8 @@ public final class ScoreCommand implements Callable<Integer> {
     }
     Bootstrap.Interval ci = Bootstrap.corpusRate(score.table().includedErrors(), score.table().includedReferenceTokens(),
         resamples, run.seed, run.effectiveThreads());
-    ScoreContext context = new ScoreContext(hypotheses.hyps.toString(), refs.toString(), unit, run.seed, resamples, ci,
+    ScoreContext context = new ScoreContext(hypotheses.hyps.toString(), refs.toString(), unit,
+        normaliser.describe(), normaliser.ruleUsage(), run.seed, resamples, ci,
         hypotheses.skipped, warnings);
 
     if (csv != null) AtomicOutput.writeText(csv, out -> ScoreReport.csv(score, out, spreadsheetSafe));

@@ -27,6 +27,7 @@ public final class CompareReport {
    *
    * @param referencesFile the references file as given
    * @param unit           token unit
+   * @param normalisation  the normaliser's one-line description
    * @param a              system A
    * @param b              system B
    * @param comparison     the paired statistics on the common set
@@ -35,7 +36,7 @@ public final class CompareReport {
    * @param importWarnings importer and normaliser warnings
    */
   public record CompareRun(
-      String referencesFile, Unit unit, SystemRun a, SystemRun b, PairedComparison comparison, long seed,
+      String referencesFile, Unit unit, String normalisation, SystemRun a, SystemRun b, PairedComparison comparison, long seed,
       List<SkippedRow> skippedRows, List<String> importWarnings) {
     public CompareRun {
       skippedRows = List.copyOf(skippedRows);
@@ -58,6 +59,7 @@ public final class CompareReport {
     ObjectNode o = JsonOutput.object();
     o.put("references_file", r.referencesFile());
     o.put("unit", ReportText.unitLabel(r.unit()));
+    o.put("normalisation", r.normalisation());
     o.put("pick", r.a().score().pick().label());
     o.put("missing_hypothesis_policy", r.a().score().missingPolicy().label());
     o.put("seed", r.seed());
@@ -112,6 +114,7 @@ public final class CompareReport {
     ScoreText.line(sb, "  references  " + r.referencesFile());
     ScoreText.line(sb, "  " + a + "  " + r.a().hypothesesFile());
     ScoreText.line(sb, "  " + b + "  " + r.b().hypothesesFile());
+    ScoreText.line(sb, "  normalised  " + r.normalisation());
     ScoreText.line(sb, "");
     ScoreText.line(sb, "On the " + c.utterances() + " utterances both systems are scored on (" + c.referenceTokens()
         + " reference " + ReportText.tokenNoun(r.unit()) + "):");

@@ -3,6 +3,7 @@ package steelyard.report;
 import java.util.List;
 import steelyard.eval.Bootstrap;
 import steelyard.io.SkippedRow;
+import steelyard.text.RuleUsage;
 import steelyard.text.Unit;
 
 /**
@@ -11,6 +12,8 @@ import steelyard.text.Unit;
  * @param hypothesesFile the hypotheses file as given on the command line
  * @param referencesFile the references file as given
  * @param unit           the token unit
+ * @param normalisation  the normaliser's one-line description ({@code Normaliser.describe()})
+ * @param ruleUsage      how many words each rule of the rules file touched ({@link RuleUsage#NONE} without one)
  * @param seed           bootstrap seed
  * @param resamples      bootstrap resamples
  * @param ci95           95 % bootstrap interval of the corpus rate
@@ -21,6 +24,8 @@ public record ScoreContext(
     String hypothesesFile,
     String referencesFile,
     Unit unit,
+    String normalisation,
+    RuleUsage ruleUsage,
     long seed,
     int resamples,
     Bootstrap.Interval ci95,

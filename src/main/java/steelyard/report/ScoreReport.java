@@ -13,6 +13,7 @@ import steelyard.eval.MissingHypothesisPolicy;
 import steelyard.eval.TokenTally;
 import steelyard.eval.UtteranceScores;
 import steelyard.io.SkippedRow;
+import steelyard.text.RuleUsage;
 
 /**
  * Renders one {@link CorpusScore} as a plain-text report, a JSON summary and a per-utterance CSV table. Rates
@@ -43,6 +44,7 @@ public final class ScoreReport {
     o.put("hypotheses_file", c.hypothesesFile());
     o.put("references_file", c.referencesFile());
     o.put("unit", ReportText.unitLabel(c.unit()));
+    o.put("normalisation", c.normalisation());
     o.put("pick", s.pick().label());
     o.put("missing_hypothesis_policy", s.missingPolicy().label());
     o.put("utterances", s.utterances());
@@ -62,9 +64,23 @@ public final class ScoreReport {
     o.set("top_substitutions", tallies(s.substitutions(), true, true));
     o.set("top_deletions", tallies(s.deletions(), true, false));
     o.set("top_insertions", tallies(s.insertions(), false, true));
+    o.set("rule_usage", ruleUsage(c.ruleUsage()));
     o.set("skipped_rows", skipped(c.skippedRows()));
     o.set("warnings", JsonOutput.strings(warnings(s, c)));
     return o;
+  }
+
+  /** Rule usage as {@code [{line, kind, rule, tokens}]} in rules-file order. */
+  public static ArrayNode ruleUsage(RuleUsage usage) {
+    ArrayNode a = JsonOutput.array();
+    for (RuleUsage.RuleCount r : usage.rules()) {
+      ObjectNode o = a.addObject();
+      o.put("line", r.line());
+      o.put("kind", r.kind().keyword());
+      o.put("rule", r.rule());
+      o.put("tokens", r.tokens());
+    }
+    return a;
   }
 
   /** Puts {@code reference_tokens, correct, substitutions, deletions, insertions, errors} in that order. */

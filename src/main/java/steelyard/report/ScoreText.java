@@ -7,6 +7,7 @@ import steelyard.eval.GroupScore;
 import steelyard.eval.Pick;
 import steelyard.eval.TokenTally;
 import steelyard.io.SkippedRow;
+import steelyard.text.RuleUsage;
 import steelyard.text.Unit;
 
 /** The plain-text score report: a headline, the counts, groups, frequent errors, what is missing, warnings. */
@@ -22,6 +23,7 @@ final class ScoreText {
     line(sb, "Steelyard score: " + rate + " of " + pickWording(s.pick()));
     line(sb, "  hypotheses  " + c.hypothesesFile());
     line(sb, "  references  " + c.referencesFile());
+    line(sb, "  normalised  " + c.normalisation());
     line(sb, "");
     line(sb, "  " + rate + " " + Numbers.percent(s.errorRate(), 2) + "   95% interval "
         + Numbers.percent(c.ci95().low(), 2) + " to " + Numbers.percent(c.ci95().high(), 2)
@@ -31,6 +33,7 @@ final class ScoreText {
         + t.correct() + " correct");
     line(sb, "  sentence error rate " + Numbers.percent(s.sentenceErrorRate(), 2) + "   ("
         + s.sentencesWithErrors() + " of " + s.utterances() + " utterances have at least one error)");
+    rules(sb, c.ruleUsage());
     groups(sb, s.groups(), rate, noun);
     frequent(sb, s);
     missing(sb, s, c.skippedRows());
@@ -47,6 +50,13 @@ final class ScoreText {
 
   static String pickWording(Pick pick) {
     return pick == Pick.FIRST ? "the recogniser's own choice (rank 1)" : "the oracle pick (fewest errors per utterance: the N-best lower bound)";
+  }
+
+  private static void rules(StringBuilder sb, RuleUsage usage) {
+    if (usage.rules().isEmpty()) return;
+    line(sb, "");
+    line(sb, "Rules file: " + usage.total() + " words touched (hypotheses and references, every pass)");
+    for (RuleUsage.RuleCount r : usage.rules()) line(sb, "  " + r.tokens() + " × " + r.description());
   }
 
   private static void groups(StringBuilder sb, List<GroupScore> groups, String rate, String noun) {

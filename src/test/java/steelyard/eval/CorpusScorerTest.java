@@ -13,7 +13,10 @@ import org.junit.jupiter.api.Test;
 import steelyard.io.Hypothesis;
 import steelyard.io.Reference;
 import steelyard.io.UtteranceHypotheses;
+import steelyard.text.NormalisationOptions;
+import steelyard.text.Normaliser;
 import steelyard.text.TokenSequence;
+import steelyard.text.Unit;
 
 class CorpusScorerTest {
   /** Whitespace words; {@code uh} and {@code um} flagged optional. */
@@ -191,6 +194,19 @@ class CorpusScorerTest {
       assertThat(x.table().includedErrors()).containsExactly(y.table().includedErrors());
       assertThat(x.totals()).isEqualTo(y.totals());
     }
+  }
+
+  @Test
+  void graphemeClusterOfSeveralCodePointsCountsAsOneCharacter() {
+    // Source: Unicode Standard Annex #29 (extended grapheme clusters): e + U+0301 is one user-perceived
+    // character, and a regional-indicator pair (a flag) is one.
+    Normaliser exact = Normaliser.create(new NormalisationOptions(false, false, false, true, null));
+    CorpusScorer scorer = new CorpusScorer(raw -> exact.tokens(raw, Unit.CHAR),
+        new CorpusScorer.Settings(Pick.FIRST, MissingHypothesisPolicy.ALL_DELETIONS, 3, false));
+    String flag = "\uD83C\uDDF3\uD83C\uDDFF";
+    CorpusScore s = scorer.score(refs("u1", "cafe\u0301" + flag), List.of(nbest("u1", "cafe" + flag)).iterator());
+    // NFKC composes e + U+0301 into U+00E9; either way the reference has five characters: c a f é and the flag.
+    assertThat(s.totals()).isEqualTo(new EditCounts(4, 1, 0, 0));
   }
 
   @Test

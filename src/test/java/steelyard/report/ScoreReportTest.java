@@ -18,6 +18,7 @@ import steelyard.eval.Pick;
 import steelyard.io.Hypothesis;
 import steelyard.io.Reference;
 import steelyard.io.UtteranceHypotheses;
+import steelyard.text.RuleUsage;
 import steelyard.text.TokenSequence;
 import steelyard.text.Unit;
 
@@ -42,7 +43,7 @@ class ScoreReportTest {
 
   private static ScoreContext context(CorpusScore s) {
     Bootstrap.Interval ci = Bootstrap.corpusRate(s.table().includedErrors(), s.table().includedReferenceTokens(), 100, 1L, 1);
-    return new ScoreContext("h.csv", "r.csv", Unit.WORD, 1L, 100, ci, List.of(), List.of("rank gap in d9"));
+    return new ScoreContext("h.csv", "r.csv", Unit.WORD, "nfkc", RuleUsage.NONE, 1L, 100, ci, List.of(), List.of("rank gap in d9"));
   }
 
   @Test
