@@ -1,6 +1,5 @@
 package steelyard.cli;
 
-import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
@@ -78,8 +77,6 @@ public final class CompareCommand implements Callable<Integer> {
   @Option(names = "--json", paramLabel = "FILE|-", description = "Write the JSON summary to FILE, or to stdout with '-'.")
   Path json;
 
-  @CommandLine.Spec CommandLine.Model.CommandSpec spec;
-
   @Override
   public Integer call() {
     if (hyps.size() != 2) throw InputException.option("--hyps", "given " + hyps.size() + " time(s)", "exactly two hypotheses files, A then B");
@@ -110,9 +107,7 @@ public final class CompareCommand implements Callable<Integer> {
         comparison, run.seed, skipped, warnings);
 
     if (json != null) JsonOutput.write(json, CompareReport.json(report));
-    PrintWriter text = json != null && json.toString().equals("-") ? spec.commandLine().getErr() : spec.commandLine().getOut();
-    text.print(CompareReport.text(report));
-    text.flush();
+    ScoreCommand.printReport(json, CompareReport.text(report));
     return Main.OK;
   }
 

@@ -1,6 +1,9 @@
 package steelyard.cli;
 
+import java.io.OutputStreamWriter;
+import java.io.PrintStream;
 import java.io.PrintWriter;
+import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -74,8 +77,6 @@ public final class ScoreCommand implements Callable<Integer> {
       description = "In the CSV, prefix cells starting with = + - @ tab or CR with an apostrophe (default ${DEFAULT-VALUE}).")
   boolean spreadsheetSafe;
 
-  @CommandLine.Spec CommandLine.Model.CommandSpec spec;
-
   @Override
   public Integer call() {
     checkOptions(resamples, top);
@@ -103,10 +104,16 @@ public final class ScoreCommand implements Callable<Integer> {
 
     if (csv != null) AtomicOutput.writeText(csv, out -> ScoreReport.csv(score, out, spreadsheetSafe));
     if (json != null) JsonOutput.write(json, ScoreReport.json(score, context));
-    PrintWriter text = json != null && json.toString().equals("-") ? spec.commandLine().getErr() : spec.commandLine().getOut();
-    text.print(ScoreReport.text(score, context));
-    text.flush();
+    printReport(json, ScoreReport.text(score, context));
     return Main.OK;
+  }
+
+  /** Prints a text report in UTF-8 whatever the platform charset: to stdout, or to stderr when JSON takes stdout. */
+  static void printReport(Path json, String text) {
+    PrintStream target = json != null && json.toString().equals("-") ? System.err : System.out;
+    PrintWriter w = new PrintWriter(new OutputStreamWriter(target, StandardCharsets.UTF_8));
+    w.print(text);
+    w.flush();
   }
 
   /** Validates the counts every scoring command takes. */
