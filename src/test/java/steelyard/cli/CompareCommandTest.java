@@ -41,9 +41,9 @@ class CompareCommandTest {
         "difference_b_minus_a", "difference_ci95_low", "difference_ci95_high", "prob_b_better", "sign_test_p",
         "utterances_a_better", "utterances_b_better", "utterances_tied", "seed", "resamples", "warnings"))
       assertThat(j.has(key)).as(key).isTrue();
-    // Worked by hand: N = 13; A 3 errors, B 1 error; difference (1 - 3)/13.
-    assertThat(j.get("common_reference_tokens").asLong()).isEqualTo(13);
-    assertThat(j.get("difference_b_minus_a").asDouble()).isCloseTo(-2.0 / 13, within(1e-6));
+    // Worked by hand: N = 3 + 2 + 4 + 2 + 3 = 14; A 3 errors, B 1 error; difference (1 - 3)/14.
+    assertThat(j.get("common_reference_tokens").asLong()).isEqualTo(14);
+    assertThat(j.get("difference_b_minus_a").asDouble()).isCloseTo(-2.0 / 14, within(1e-6));
     assertThat(j.get("utterances_b_better").asInt()).isEqualTo(3);
     assertThat(j.get("utterances_a_better").asInt()).isEqualTo(1);
     assertThat(j.get("utterances_tied").asInt()).isEqualTo(1);

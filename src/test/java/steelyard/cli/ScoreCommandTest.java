@@ -147,7 +147,7 @@ class ScoreCommandTest {
     @Test
     void missingUtterancesAreReportedAndCountedByPolicy() throws IOException {
       Path refs = write(dir, "refs4.csv", REFS + "d4,two bins,south\n");
-      Path hyps = write(dir, "hyps4.csv", HYPS + "d9,ghost words,-1\n");
+      Path hyps = write(dir, "hyps4.csv", HYPS + "d9,1,ghost words,-1\n");
       Path all = dir.resolve("all.json");
       Path ex = dir.resolve("ex.json");
       assertThat(run("score", "--hyps", hyps.toString(), "--refs", refs.toString(), "--json", all.toString()).code()).isZero();
@@ -301,7 +301,8 @@ class ScoreCommandTest {
 
     @Test
     void ocrRankOneAndOracleCharacterErrorRates() throws IOException {
-      // Case and punctuation matter in these lines: no folding, no stripping.
+      // Case and punctuation matter in these lines: no folding, no stripping. With NFKC only the figures are
+      // reproduced up to the README's rounding (two decimals of a percentage), hence ±0.05 points.
       Path base = realistic();
       assumeTrue(base != null, "realistic fixtures not found (../shared/realistic): skipped");
       Path h = base.resolve("ocr/dev.nbest.csv");
@@ -312,8 +313,8 @@ class ScoreCommandTest {
           "--features", "confidence,mean_word_conf:linear:scale=0.01", "--json", first.toString()).code()).isZero();
       assertThat(run("score", "--hyps", h.toString(), "--refs", r.toString(), "--unit", "char", "--pick", "oracle",
           "--json", oracle.toString()).code()).isZero();
-      assertThat(json(first).get("error_rate").asDouble()).isBetween(0.0644 - 0.002, 0.0644 + 0.002);
-      assertThat(json(oracle).get("error_rate").asDouble()).isBetween(0.0501 - 0.002, 0.0501 + 0.002);
+      assertThat(json(first).get("error_rate").asDouble()).isBetween(0.0644 - 0.0005, 0.0644 + 0.0005);
+      assertThat(json(oracle).get("error_rate").asDouble()).isBetween(0.0501 - 0.0005, 0.0501 + 0.0005);
     }
   }
 }
