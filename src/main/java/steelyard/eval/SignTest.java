@@ -17,18 +17,20 @@ public final class SignTest {
     long n = winsA + winsB;
     if (n == 0) return 1.0;
     long k = Math.min(winsA, winsB);
-    // ln C(n, i) built up term by term: ln C(n, i+1) = ln C(n, i) + ln(n - i) - ln(i + 1).
+    // ln C(n, i) built up term by term, ln C(n, i+1) = ln C(n, i) + ln(n - i) - ln(i + 1), and summed by a
+    // streaming log-sum-exp (sum is kept relative to the largest term so far).
     double logTerm = 0.0;
     double maxLog = 0.0;
-    double[] logs = new double[(int) Math.min(k + 1, Integer.MAX_VALUE - 8)];
-    logs[0] = 0.0;
-    for (int i = 0; i < k; i++) {
+    double sum = 1.0;
+    for (long i = 0; i < k; i++) {
       logTerm += Math.log(n - i) - Math.log(i + 1.0);
-      logs[i + 1] = logTerm;
-      if (logTerm > maxLog) maxLog = logTerm;
+      if (logTerm > maxLog) {
+        sum = sum * Math.exp(maxLog - logTerm) + 1.0;
+        maxLog = logTerm;
+      } else {
+        sum += Math.exp(logTerm - maxLog);
+      }
     }
-    double sum = 0.0;
-    for (double l : logs) sum += Math.exp(l - maxLog);
     double logTail = maxLog + Math.log(sum) - n * Math.log(2.0);
     double p = Math.exp(Math.log(2.0) + logTail);
     return Math.min(1.0, p);
