@@ -73,6 +73,8 @@ public final class Aligner {
     if (refLen == 0) return hypLen;
     if (hypLen == 0) return refLen;
     if (refLen <= BitParallelCounts.MAX_REF) return bits.distance(ref, refLen, hyp, hypLen);
+    // The distance is symmetric: a short hypothesis can play the bit-parallel pattern.
+    if (hypLen <= BitParallelCounts.MAX_REF) return bits.distance(hyp, hypLen, ref, refLen);
     return distanceScalar(ref, refLen, hyp, hypLen);
   }
 
