@@ -80,49 +80,35 @@ final class BitParallelCounts {
     return backtrace(ref, n, hyp, m);
   }
 
-  // Walks back from (n, m) preferring diagonal, then up (deletion), then left (insertion).
+  // Walks back from (n, m) preferring diagonal, then up (deletion), then left (insertion). Branch-free steps:
+  // the move depends on data that a branch predictor cannot learn, so it is computed arithmetically.
   private int backtrace(int[] ref, int n, int[] hyp, int m) {
     int i = n;
     int j = m;
     int here = cost(i, j);
     int total = here;
-    int c = 0;
+    int diagSteps = 0;
     int s = 0;
     int d = 0;
-    int ins = 0;
     while (i > 0 && j > 0) {
-      if (ref[i - 1] == hyp[j - 1]) {
-        // Equal tokens: cost(i-1, j-1) = cost(i, j) always holds for unit costs, so the diagonal is optimal.
-        c++;
-        i--;
-        j--;
-        continue;
-      }
+      int same = ref[i - 1] == hyp[j - 1] ? 1 : 0;
       int diag = cost(i - 1, j - 1);
-      if (diag + 1 == here) {
-        s++;
-        i--;
-        j--;
-        here = diag;
-        continue;
-      }
       int up = cost(i - 1, j);
-      if (up + 1 == here) {
-        d++;
-        i--;
-        here = up;
-      } else {
-        ins++;
-        j--;
-        here--;
-      }
+      int takeDiag = same | (diag + 1 == here ? 1 : 0);
+      int takeUp = (1 - takeDiag) & (up + 1 == here ? 1 : 0);
+      int takeLeft = 1 - takeDiag - takeUp;
+      diagSteps += takeDiag;
+      s += takeDiag & (1 - same);
+      d += takeUp;
+      here -= (takeDiag & (1 - same)) + takeUp + takeLeft;
+      i -= takeDiag + takeUp;
+      j -= takeDiag + takeLeft;
     }
     d += i;
-    ins += j;
-    correct = c;
     substitutions = s;
+    correct = diagSteps - s;
     deletions = d;
-    insertions = ins;
+    insertions = d + m - n;
     return total;
   }
 
