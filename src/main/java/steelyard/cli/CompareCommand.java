@@ -83,7 +83,7 @@ public final class CompareCommand implements Callable<Integer> {
     List<String> display = names == null ? List.of("A", "B") : names;
     if (display.size() != 2 || display.get(0).isBlank() || display.get(1).isBlank() || display.get(0).equals(display.get(1)))
       throw InputException.option("--names", "'" + String.join(",", display) + "' is not two distinct names", "two names such as baseline,tuned");
-    ScoreCommand.checkOptions(resamples, 0);
+    ScoreCommand.checkOptions(pick, resamples, 0);
     LinkedHashMap<String, Path> outputs = new LinkedHashMap<>();
     outputs.put("--json", json);
     List<Path> inputs = new ArrayList<>(hyps);

@@ -79,7 +79,7 @@ public final class ScoreCommand implements Callable<Integer> {
 
   @Override
   public Integer call() {
-    checkOptions(resamples, top);
+    checkOptions(pick, resamples, top);
     LinkedHashMap<String, Path> outputs = new LinkedHashMap<>();
     outputs.put("--json", json);
     outputs.put("--csv", csv);
@@ -117,7 +117,8 @@ public final class ScoreCommand implements Callable<Integer> {
   }
 
   /** Validates the counts every scoring command takes. */
-  static void checkOptions(int resamples, int top) {
+  static void checkOptions(Pick pick, int resamples, int top) {
+    if (pick == Pick.GIVEN) throw InputException.option("--pick", "'given' is for programs, not the command line", "first or oracle");
     if (resamples < 1) throw InputException.option("--resamples", "must be at least 1, got " + resamples, "a positive number such as 1000");
     if (top < 0) throw InputException.option("--top", "must not be negative, got " + top, "0 or more");
   }

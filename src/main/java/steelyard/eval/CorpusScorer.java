@@ -7,6 +7,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.TreeMap;
 import java.util.function.Function;
+import java.util.function.ToIntFunction;
 import steelyard.io.Hypothesis;
 import steelyard.io.Reference;
 import steelyard.io.UtteranceHypotheses;
@@ -55,7 +56,18 @@ public final class CorpusScorer {
 
   /** Scores all of {@code hyps} against {@code refs} (iteration order of {@code refs} = table order). */
   public CorpusScore score(Map<String, Reference> refs, Iterator<UtteranceHypotheses> hyps) {
-    return new Run(refs).score(hyps);
+    if (settings.pick() == Pick.GIVEN) throw new IllegalArgumentException("Pick.GIVEN needs a chooser");
+    return new Run(refs, null).score(hyps);
+  }
+
+  /**
+   * Scores the hypothesis that {@code chooser} picks per utterance (an index into
+   * {@link UtteranceHypotheses#hypotheses()}, e.g. a rescoring's choice); the settings' pick must be
+   * {@link Pick#GIVEN}.
+   */
+  public CorpusScore score(Map<String, Reference> refs, Iterator<UtteranceHypotheses> hyps, ToIntFunction<UtteranceHypotheses> chooser) {
+    if (settings.pick() != Pick.GIVEN) throw new IllegalArgumentException("a chooser needs Pick.GIVEN, not " + settings.pick());
+    return new Run(refs, chooser).score(hyps);
   }
 
   /** Token ids and optional flags (null when none is optional) of one text. */
@@ -70,8 +82,10 @@ public final class CorpusScorer {
     private final ErrorTallies tallies = new ErrorTallies();
     private final List<String> missingRefs = new ArrayList<>();
     private final List<String> warnings = new ArrayList<>();
+    private final ToIntFunction<UtteranceHypotheses> chooser;
 
-    Run(Map<String, Reference> refMap) {
+    Run(Map<String, Reference> refMap, ToIntFunction<UtteranceHypotheses> chooser) {
+      this.chooser = chooser;
       refs = refMap.values().toArray(new Reference[0]);
       String[] ids = new String[refs.length];
       String[] texts = new String[refs.length];
@@ -100,7 +114,7 @@ public final class CorpusScorer {
         throw new IllegalArgumentException("utterance " + u.uttId() + " given twice");
       Reference ref = refs[row];
       Tokens r = tokens(ref.text());
-      Hypothesis chosen = u.first();
+      Hypothesis chosen = chooser == null ? u.first() : u.hypotheses().get(chooser.applyAsInt(u));
       Tokens h = tokens(chosen.text());
       if (settings.pick() == Pick.ORACLE) {
         int bestErrors = aligner.measure(r.ids, r.optional, h.ids, h.optional);

@@ -49,7 +49,11 @@ final class ScoreText {
   }
 
   static String pickWording(Pick pick) {
-    return pick == Pick.FIRST ? "the recogniser's own choice (rank 1)" : "the oracle pick (fewest errors per utterance: the N-best lower bound)";
+    switch (pick) {
+      case FIRST: return "the recogniser's own choice (rank 1)";
+      case ORACLE: return "the oracle pick (fewest errors per utterance: the N-best lower bound)";
+      default: return "the given choice per utterance";
+    }
   }
 
   private static void rules(StringBuilder sb, RuleUsage usage) {

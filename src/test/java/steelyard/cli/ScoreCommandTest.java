@@ -190,6 +190,7 @@ class ScoreCommandTest {
       assertThat(run("score", "--hyps", hyps().toString(), "--refs", refs().toString(), "--missing-hyp", "ignore").code()).isEqualTo(2);
       assertThat(run("score", "--hyps", hyps().toString(), "--refs", refs().toString(), "--resamples", "0").code()).isEqualTo(2);
       assertThat(run("score", "--hyps", hyps().toString(), "--refs", refs().toString(), "--pick", "best").code()).isEqualTo(2);
+      assertThat(run("score", "--hyps", hyps().toString(), "--refs", refs().toString(), "--pick", "given").code()).isEqualTo(2);
       assertThat(run("score", "--hyps", hyps().toString()).code()).isEqualTo(2);
     }
   }

@@ -152,6 +152,15 @@ class CorpusScorerTest {
       }
     }
 
+    @Test
+    void givenPickScoresTheCallersChoice() {
+      CorpusScorer scorer = new CorpusScorer(WORDS, new CorpusScorer.Settings(Pick.GIVEN, MissingHypothesisPolicy.ALL_DELETIONS, 3, true));
+      CorpusScore s = scorer.score(refs("u1", "six crates"), List.of(nbest("u1", "sticks crates", "six crates")).iterator(), u -> 1);
+      assertThat(s.totals()).isEqualTo(new EditCounts(2, 0, 0, 0));
+      assertThat(s.table().hypRank(0)).isEqualTo(2);
+      assertThat(s.pick()).isEqualTo(Pick.GIVEN);
+    }
+
     private String sentence(SplittableRandom rnd, String[] words) {
       StringBuilder sb = new StringBuilder();
       for (int i = rnd.nextInt(7); i > 0; i--) sb.append(words[rnd.nextInt(words.length)]).append(' ');
