@@ -35,7 +35,7 @@ import steelyard.text.Unit;
     name = "compare",
     mixinStandardHelpOptions = true,
     description = {
-      "Compare two systems on the same references: both rates with 95% intervals, the paired-bootstrap interval"
+      "Compare two systems on the same references: both rates with 95%% intervals, the paired-bootstrap interval"
           + " of the difference, the probability that B is better and an exact sign test.",
       "The plain-text report goes to stdout (to stderr when --json is '-')."
     })

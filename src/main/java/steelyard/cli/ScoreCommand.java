@@ -40,7 +40,7 @@ import steelyard.text.Unit;
     name = "score",
     mixinStandardHelpOptions = true,
     description = {
-      "Score hypotheses against references: WER/CER with a 95% bootstrap interval, sentence error rate, groups,"
+      "Score hypotheses against references: WER/CER with a 95%% bootstrap interval, sentence error rate, groups,"
           + " most frequent errors and missing utterances.",
       "The plain-text report goes to stdout (to stderr when --json is '-')."
     })

@@ -174,6 +174,16 @@ class ScoreCommandTest {
     }
   }
 
+  @Test
+  void helpPrintsCleanlyForBothCommands() {
+    for (String cmd : List.of("score", "compare")) {
+      Result r = run(cmd, "--help");
+      assertThat(r.code()).isZero();
+      assertThat(r.out()).contains("--refs").contains("95% ");
+      assertThat(r.out() + r.err()).doesNotContain("WARN");
+    }
+  }
+
   @Nested
   class Refusals {
     @Test
