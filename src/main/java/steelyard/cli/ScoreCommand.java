@@ -45,6 +45,9 @@ import steelyard.text.Unit;
       "The plain-text report goes to stdout (to stderr when --json is '-')."
     })
 public final class ScoreCommand implements Callable<Integer> {
+  /** Upper limit of {@code --resamples}: the resample rates are held in memory (8 bytes each). */
+  static final int MAX_RESAMPLES = 1_000_000;
+
   @Mixin HypothesesInput hypotheses;
   @Mixin NormalisationInput normalisation;
   @Mixin RunInput run;
@@ -119,7 +122,8 @@ public final class ScoreCommand implements Callable<Integer> {
   /** Validates the counts every scoring command takes. */
   static void checkOptions(Pick pick, int resamples, int top) {
     if (pick == Pick.GIVEN) throw InputException.option("--pick", "'given' is for programs, not the command line", "first or oracle");
-    if (resamples < 1) throw InputException.option("--resamples", "must be at least 1, got " + resamples, "a positive number such as 1000");
+    if (resamples < 1 || resamples > MAX_RESAMPLES)
+      throw InputException.option("--resamples", "must be between 1 and " + MAX_RESAMPLES + ", got " + resamples, "a number such as 1000");
     if (top < 0) throw InputException.option("--top", "must not be negative, got " + top, "0 or more");
   }
 
