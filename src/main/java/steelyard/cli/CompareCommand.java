@@ -14,6 +14,7 @@ import steelyard.eval.CorpusScorer;
 import steelyard.eval.MissingHypothesisPolicy;
 import steelyard.eval.PairedComparison;
 import steelyard.eval.Pick;
+import steelyard.eval.SystemFilter;
 import steelyard.io.FeatureSpec;
 import steelyard.io.HypothesesReader;
 import steelyard.io.ImportOptions;
@@ -41,8 +42,13 @@ import steelyard.text.Unit;
     })
 public final class CompareCommand implements Callable<Integer> {
   // The shared hypotheses mixin takes one --hyps; compare takes two, so its import options are declared here.
-  @Option(names = "--hyps", required = true, paramLabel = "FILE", description = "Hypotheses CSV of a system; give exactly two: A, then B.")
+  @Option(names = "--hyps", required = true, paramLabel = "FILE",
+      description = "Hypotheses CSV of a system; give two (A, then B), or one together with --systems.")
   List<Path> hyps;
+
+  @Option(names = "--systems", paramLabel = "A,B", split = ",",
+      description = "Compare two values of the system column of one hypotheses file (A, then B).")
+  List<String> systems;
 
   @Option(names = "--names", paramLabel = "A,B", split = ",", description = "Display names of the two systems (default A,B).")
   List<String> names;
@@ -79,8 +85,12 @@ public final class CompareCommand implements Callable<Integer> {
 
   @Override
   public Integer call() {
-    if (hyps.size() != 2) throw InputException.option("--hyps", "given " + hyps.size() + " time(s)", "exactly two hypotheses files, A then B");
-    List<String> display = names == null ? List.of("A", "B") : names;
+    if (systems == null && hyps.size() != 2)
+      throw InputException.option("--hyps", "given " + hyps.size() + " time(s)", "two hypotheses files, A then B, or one file with --systems A,B");
+    if (systems != null && (hyps.size() != 1 || systems.size() != 2 || systems.get(0).equals(systems.get(1))))
+      throw InputException.option("--systems", "needs one --hyps file and two distinct system names, got " + hyps.size()
+          + " file(s) and '" + String.join(",", systems) + "'", "--hyps FILE --systems A,B");
+    List<String> display = names != null ? names : systems != null ? systems : List.of("A", "B");
     if (display.size() != 2 || display.get(0).isBlank() || display.get(1).isBlank() || display.get(0).equals(display.get(1)))
       throw InputException.option("--names", "'" + String.join(",", display) + "' is not two distinct names", "two names such as baseline,tuned");
     ScoreCommand.checkOptions(pick, resamples, 0);
@@ -98,12 +108,14 @@ public final class CompareCommand implements Callable<Integer> {
     Unit unit = normalisation.unit;
     LinkedHashMap<String, Reference> refMap = ReferencesReader.readAll(refs, ScoreCommand.withoutFeatures(options));
     CorpusScorer scorer = new CorpusScorer(raw -> normaliser.tokens(raw, unit), new CorpusScorer.Settings(pick, missing, 0, false));
-    CorpusScore a = scoreFile(scorer, refMap, hyps.get(0), options);
-    CorpusScore b = scoreFile(scorer, refMap, hyps.get(1), options);
+    Path fileA = hyps.get(0);
+    Path fileB = systems == null ? hyps.get(1) : hyps.get(0);
+    CorpusScore a = scoreFile(scorer, refMap, fileA, systems == null ? null : systems.get(0), options);
+    CorpusScore b = scoreFile(scorer, refMap, fileB, systems == null ? null : systems.get(1), options);
     PairedComparison comparison = PairedComparison.of(a, b, resamples, run.seed, run.effectiveThreads());
     CompareReport.CompareRun report = new CompareReport.CompareRun(refs.toString(), unit, normaliser.describe(),
-        new CompareReport.SystemRun(display.get(0), hyps.get(0).toString(), a),
-        new CompareReport.SystemRun(display.get(1), hyps.get(1).toString(), b),
+        new CompareReport.SystemRun(display.get(0), label(fileA, 0), a),
+        new CompareReport.SystemRun(display.get(1), label(fileB, 1), b),
         comparison, run.seed, skipped, warnings);
 
     if (json != null) JsonOutput.write(json, CompareReport.json(report));
@@ -111,9 +123,17 @@ public final class CompareCommand implements Callable<Integer> {
     return Main.OK;
   }
 
-  private static CorpusScore scoreFile(CorpusScorer scorer, LinkedHashMap<String, Reference> refMap, Path file, ImportOptions options) {
+  // The file, with the system when one file holds both: "dockets.csv system=line-gray".
+  private String label(Path file, int which) {
+    return systems == null ? file.toString() : file + " system=" + systems.get(which);
+  }
+
+  private static CorpusScore scoreFile(
+      CorpusScorer scorer, LinkedHashMap<String, Reference> refMap, Path file, String system, ImportOptions options) {
     try (HypothesesReader reader = HypothesesReader.open(file, options)) {
-      return scorer.score(refMap, reader);
+      if (system != null && !reader.hasSystemColumn())
+        throw InputException.inFile(file, "--systems needs a 'system' column, which this file does not have", "a column named system");
+      return scorer.score(refMap, system == null ? reader : new SystemFilter(reader, system));
     }
   }
 

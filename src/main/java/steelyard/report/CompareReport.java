@@ -82,7 +82,7 @@ public final class CompareReport {
     o.put("utterances_a_better", c.aBetter());
     o.put("utterances_b_better", c.bBetter());
     o.put("utterances_tied", c.ties());
-    o.put("sign_test_p", Numbers.decimal(c.signTestP(), 9));
+    o.put("sign_test_p", Numbers.significant(c.signTestP(), 10));
     o.set("skipped_rows", ScoreReport.skipped(r.skippedRows()));
     o.set("warnings", JsonOutput.strings(r.warnings()));
     return o;
@@ -128,7 +128,7 @@ public final class CompareReport {
     ScoreText.line(sb, "  " + b + " makes fewer errors than " + a + " in " + Numbers.percent(c.paired().probBBetter(), 1)
         + " of the resamples, " + a + " fewer than " + b + " in " + Numbers.percent(c.paired().probABetter(), 1));
     ScoreText.line(sb, "  per utterance: " + b + " better on " + c.bBetter() + ", " + a + " better on " + c.aBetter()
-        + ", equal on " + c.ties() + "; exact two-sided sign test p = " + Numbers.fixed(c.signTestP(), 4) + " (ties dropped)");
+        + ", equal on " + c.ties() + "; exact two-sided sign test p " + Numbers.pValue(c.signTestP()) + " (ties dropped)");
     for (SystemRun s : List.of(r.a(), r.b())) {
       CorpusScore sc = s.score();
       if (!sc.missingHypotheses().isEmpty())

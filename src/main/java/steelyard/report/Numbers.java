@@ -43,6 +43,19 @@ public final class Numbers {
     return Double.isFinite(v) ? round(v, digits) : null;
   }
 
+  /** {@code v} to {@code significant} significant digits for JSON (plain form, e.g. a small p-value); null when not finite. */
+  public static BigDecimal significant(double v, int significant) {
+    if (!Double.isFinite(v)) return null;
+    if (v == 0) return BigDecimal.ZERO;
+    return new BigDecimal(v).round(new java.math.MathContext(significant, RoundingMode.HALF_EVEN)).stripTrailingZeros();
+  }
+
+  /** A p-value for text: four decimals, or {@code < 0.0001} below that. */
+  public static String pValue(double p) {
+    if (Double.isFinite(p) && p < 0.0001) return "< 0.0001";
+    return "= " + fixed(p, 4);
+  }
+
   private static BigDecimal round(double v, int digits) {
     BigDecimal d = new BigDecimal(v).setScale(digits, RoundingMode.HALF_EVEN);
     // -0.000 prints as 0.000.

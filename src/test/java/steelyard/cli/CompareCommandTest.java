@@ -67,6 +67,29 @@ class CompareCommandTest {
   }
 
   @Test
+  void comparesTwoSystemsOfOneFile() throws IOException {
+    Path refs = write(dir, "refs.csv", REFS);
+    StringBuilder both = new StringBuilder("utt_id,system,text\n");
+    String[] a = HYPS_A.split("\n");
+    String[] b = HYPS_B.split("\n");
+    for (int i = 1; i < a.length; i++) {
+      both.append(a[i].replaceFirst(",", ",alpha,")).append('\n');
+      both.append(b[i].replaceFirst(",", ",beta,")).append('\n');
+    }
+    Path h = write(dir, "both.csv", both.toString());
+    Path out = dir.resolve("sys.json");
+    ScoreCommandTest.Result r = run("compare", "--refs", refs.toString(), "--hyps", h.toString(), "--systems", "alpha,beta", "--json", out.toString());
+    assertThat(r.code()).as(r.err()).isZero();
+    JsonNode j = json(out);
+    assertThat(j.get("systems").get(0).get("name").asText()).isEqualTo("alpha");
+    assertThat(j.get("utterances_b_better").asInt()).isEqualTo(3);
+    assertThat(j.get("utterances_a_better").asInt()).isEqualTo(1);
+    assertThat(run("compare", "--refs", refs.toString(), "--hyps", h.toString(), "--systems", "alpha").code()).isEqualTo(2);
+    Path noSystem = write(dir, "nosys.csv", HYPS_A);
+    assertThat(run("compare", "--refs", refs.toString(), "--hyps", noSystem.toString(), "--systems", "alpha,beta").code()).isEqualTo(2);
+  }
+
+  @Test
   void needsExactlyTwoSystemsAndTwoDistinctNames() throws IOException {
     Path refs = write(dir, "refs.csv", REFS);
     Path a = write(dir, "a.csv", HYPS_A);

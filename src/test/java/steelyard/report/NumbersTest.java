@@ -34,6 +34,14 @@ class NumbersTest {
   }
 
   @Test
+  void smallPValuesKeepTheirSignificantDigits() {
+    assertThat(Numbers.significant(2.0 / 1024 / 1024 / 1024, 4).toPlainString()).isEqualTo("0.000000001863");
+    assertThat(Numbers.significant(1.0, 10).toPlainString()).isEqualTo("1");
+    assertThat(Numbers.pValue(1e-9)).isEqualTo("< 0.0001");
+    assertThat(Numbers.pValue(0.021484375)).isEqualTo("= 0.0215");
+  }
+
+  @Test
   void jsonDecimalsAreNeverInExponentForm() {
     assertThat(JsonOutput.render(JsonOutput.object().put("x", Numbers.decimal(1e-9, 6)))).contains("\"x\" : 0.000000");
   }
