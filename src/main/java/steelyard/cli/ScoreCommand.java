@@ -19,6 +19,7 @@ import steelyard.eval.CorpusScore;
 import steelyard.eval.CorpusScorer;
 import steelyard.eval.MissingHypothesisPolicy;
 import steelyard.eval.Pick;
+import steelyard.eval.SystemFilter;
 import steelyard.io.AtomicOutput;
 import steelyard.io.HypothesesReader;
 import steelyard.io.ImportOptions;
@@ -54,6 +55,10 @@ public final class ScoreCommand implements Callable<Integer> {
 
   @Option(names = "--refs", required = true, paramLabel = "FILE", description = "References CSV (utt_id,text[,group]; .gz accepted).")
   Path refs;
+
+  @Option(names = "--system", paramLabel = "NAME",
+      description = "Score only this value of the system column (its own smallest rank is its pick).")
+  String system;
 
   @Option(names = "--pick", paramLabel = "first|oracle", defaultValue = "first",
       description = "Hypothesis scored per utterance: first = the recogniser's rank 1, oracle = fewest errors (default ${DEFAULT-VALUE}).")
@@ -97,11 +102,14 @@ public final class ScoreCommand implements Callable<Integer> {
         new CorpusScorer.Settings(pick, missing, top, csv != null));
     CorpusScore score;
     try (HypothesesReader reader = HypothesesReader.open(hypotheses.hyps, options)) {
-      score = scorer.score(refMap, reader);
+      if (system != null && !reader.hasSystemColumn())
+        throw InputException.inFile(hypotheses.hyps, "--system needs a 'system' column, which this file does not have", "a column named system");
+      score = scorer.score(refMap, system == null ? reader : new SystemFilter(reader, system));
     }
     Bootstrap.Interval ci = Bootstrap.corpusRate(score.table().includedErrors(), score.table().includedReferenceTokens(),
         resamples, run.seed, run.effectiveThreads());
-    ScoreContext context = new ScoreContext(hypotheses.hyps.toString(), refs.toString(), unit,
+    String source = system == null ? hypotheses.hyps.toString() : hypotheses.hyps + " system=" + system;
+    ScoreContext context = new ScoreContext(source, refs.toString(), unit,
         normaliser.describe(), normaliser.ruleUsage(), run.seed, resamples, ci,
         hypotheses.skipped, warnings);
 

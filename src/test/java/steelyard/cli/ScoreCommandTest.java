@@ -162,6 +162,24 @@ class ScoreCommandTest {
     }
 
     @Test
+    void scoresOneSystemOfAMultiSystemFile() throws IOException {
+      Path h = write(dir, "multi.csv", "utt_id,system,rank,text\n"
+          + "d1,gray,1,load six crates of pears\nd1,deskew,1,load sick crates of pears\n"
+          + "d2,deskew,1,bay four is full\nd2,gray,1,bay for is full\n");
+      Path r = write(dir, "r2.csv", "utt_id,text\nd1,load six crates of pears\nd2,bay four is full\n");
+      Path gray = dir.resolve("gray.json");
+      Path deskew = dir.resolve("deskew.json");
+      assertThat(run("score", "--hyps", h.toString(), "--refs", r.toString(), "--system", "gray", "--json", gray.toString()).code()).isZero();
+      assertThat(run("score", "--hyps", h.toString(), "--refs", r.toString(), "--system", "deskew", "--json", deskew.toString()).code()).isZero();
+      assertThat(json(gray).get("substitutions").asLong()).isEqualTo(1);
+      assertThat(json(gray).get("hypotheses_file").asText()).endsWith("system=gray");
+      assertThat(json(deskew).get("substitutions").asLong()).isEqualTo(1);
+      Path none = dir.resolve("none.json");
+      assertThat(run("score", "--hyps", h.toString(), "--refs", r.toString(), "--system", "upscale", "--json", none.toString()).code()).isZero();
+      assertThat(json(none).get("missing_hypotheses").asInt()).isEqualTo(2);
+    }
+
+    @Test
     void zeroReferenceTokensGiveANullRateAndAWarning() throws IOException {
       Path refs = write(dir, "empty-refs.csv", "utt_id,text\nd1,\n");
       Path hyps = write(dir, "h1.csv", "utt_id,text\nd1,stray noise\n");
