@@ -160,6 +160,16 @@ public final class ConfusionNetwork {
     return out;
   }
 
+  /**
+   * The arc consensus decoding takes in {@code slot}: the highest posterior; ties go to the arc that
+   * appeared first in the slot (the arc of the earliest-entered hypothesis).
+   */
+  public int consensusArc(int slot) {
+    int best = slotStart[slot];
+    for (int a = best + 1; a < slotStart[slot + 1]; a++) if (arcPosterior[a] > arcPosterior[best]) best = a;
+    return best;
+  }
+
   /** The entry number of input hypothesis {@code input}, or −1 when the cap left it out. */
   public int enteredIndexOf(int input) {
     for (int k = 0; k < entered.length; k++) if (entered[k] == input) return k;

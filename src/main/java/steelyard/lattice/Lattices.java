@@ -37,8 +37,7 @@ public final class Lattices {
     List<String> tokens = new ArrayList<>();
     double logPost = 0;
     for (int s = 0; s < net.slotCount(); s++) {
-      int best = net.arcStart(s);
-      for (int a = best + 1; a < net.arcEnd(s); a++) if (net.arcPosterior(a) > net.arcPosterior(best)) best = a;
+      int best = net.consensusArc(s);
       logPost += Math.log(net.arcPosterior(best));
       if (!net.isEmpty(best)) tokens.add(net.arcText(best));
     }
