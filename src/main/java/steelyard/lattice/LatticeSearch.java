@@ -35,6 +35,10 @@ final class LatticeSearch {
   private final int k;
   private final int[] lmIds;
   private final double[] lnPost;
+  /** Arcs of each slot by descending posterior (ties: arc order), in the slot's own index range. */
+  private final int[] arcOrder;
+  /** Whether a path's LM term can only lower its score, so posterior and length bound it from above. */
+  private final boolean boundable;
   private final IntArrayList textA = new IntArrayList();
   private final IntArrayList textB = new IntArrayList();
   private double[] nScore = new double[256];
@@ -65,6 +69,15 @@ final class LatticeSearch {
       lnPost[a] = Math.log(net.arcPosterior(a));
       if (this.lm != null && !net.isEmpty(a)) lmIds[a] = this.lm.wordId(net.arcText(a));
     }
+    arcOrder = new int[arcs];
+    for (int a = 0; a < arcs; a++) arcOrder[a] = a;
+    for (int s = 0; s < net.slotCount(); s++) {
+      IntArrays.mergeSort(arcOrder, net.arcStart(s), net.arcEnd(s), (x, y) -> {
+        int c = Double.compare(lnPost[y], lnPost[x]);
+        return c != 0 ? c : Integer.compare(x, y);
+      });
+    }
+    boundable = k == 1 && lmWeight >= 0;
   }
 
   /** Whether the beam dropped states in the last {@link #run}. */
@@ -76,8 +89,8 @@ final class LatticeSearch {
   List<Path> run() {
     nodes = 0;
     pruned = false;
-    Layer cur = new Layer(lm, k);
-    Layer next = new Layer(lm, k);
+    Layer cur = new Layer(lm, k, beam);
+    Layer next = new Layer(lm, k, beam);
     LmState scratch = lm == null ? null : lm.newState();
     if (lm != null) lm.beginSentence(scratch);
     int root = newNode(0, 0, 0, 0, -1, -1, 17L);
@@ -101,15 +114,33 @@ final class LatticeSearch {
     int live = Math.min(cur.size, beam);
     for (int o = 0; o < live; o++) {
       int st = cur.order[o];
-      for (int a = net.arcStart(slot); a < net.arcEnd(slot); a++) {
-        if (lnPost[a] == Double.NEGATIVE_INFINITY) continue;
+      double from = cur.best[st];
+      for (int x = net.arcStart(slot); x < net.arcEnd(slot); x++) {
+        int a = arcOrder[x];
+        if (lnPost[a] == Double.NEGATIVE_INFINITY) break;
         boolean token = !net.isEmpty(a);
+        double upper = from + lnPost[a] + (token ? lengthWeight : 0);
+        if (boundable && upper < next.bound()) {
+          pruned |= lm != null; // without an LM there is one state, which the beam always keeps
+          // k = 1 and λ′ ≥ 0: the LM can only lower a score. Arcs come by descending posterior and states
+          // by descending score, so once even the best case of this arc misses the bound, so does every
+          // later arc of this state, and when it is the state's first arc, every later state.
+          if (from + lnPost[a] + Math.max(0, lengthWeight) < next.bound()) {
+            if (x == net.arcStart(slot)) return;
+            break;
+          }
+          continue;
+        }
         double lmDelta = 0;
         int target;
         if (lm == null) {
           target = next.find(null);
         } else if (token) {
           lmDelta = lm.score(cur.states[st], lmIds[a], scratch);
+          if (boundable && upper + lmWeight * lmDelta < next.bound()) {
+            pruned = true;
+            continue;
+          }
           target = next.find(scratch);
         } else {
           target = next.find(cur.states[st]);
@@ -136,6 +167,7 @@ final class LatticeSearch {
         break;
       }
     }
+    if (cnt == 0) layer.created(score);
     int node = newNode(score, nLogPost[parent] + lnPost[arc], nLm[parent] + lmDelta,
         nTokens[parent] + (token ? 1 : 0), parent, arc, hash);
     int pos = Math.min(cnt, k - 1);

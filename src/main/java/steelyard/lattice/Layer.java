@@ -24,8 +24,13 @@ final class Layer {
   double[] best = new double[16];
   int[] order = new int[16];
   int size;
+  /** Min-heap of the first scores of the states created so far, at most beam of them (see {@link #bound}). */
+  private double[] heap = new double[16];
+  private int heapSize;
+  private final int beam;
 
-  Layer(LanguageModel lm, int k) {
+  Layer(LanguageModel lm, int k, int beam) {
+    this.beam = beam;
     this.lm = lm;
     this.k = k;
     this.nodes = new int[16 * k];
@@ -35,6 +40,42 @@ final class Layer {
   void clear() {
     index.clear();
     size = 0;
+    heapSize = 0;
+  }
+
+  /**
+   * A lower bound on the beam-th best state score this layer will end with, or −∞ while fewer than beam
+   * states exist. It is the beam-th best of the states' first scores: scores only rise and states are never
+   * removed, so it never exceeds the final beam-th best, and a path scoring below it can neither create a
+   * state that survives the beam nor improve one that does.
+   */
+  double bound() {
+    return heapSize == beam ? heap[0] : Double.NEGATIVE_INFINITY;
+  }
+
+  /** Records the first score of a newly created state. */
+  void created(double score) {
+    if (beam == Integer.MAX_VALUE) return;
+    if (heapSize < beam) {
+      if (heapSize == heap.length) heap = Arrays.copyOf(heap, Math.min(beam, heap.length * 2));
+      int i = heapSize++;
+      while (i > 0 && heap[(i - 1) >> 1] > score) {
+        heap[i] = heap[(i - 1) >> 1];
+        i = (i - 1) >> 1;
+      }
+      heap[i] = score;
+    } else if (score > heap[0]) {
+      int i = 0;
+      while (true) {
+        int c = 2 * i + 1;
+        if (c >= heapSize) break;
+        if (c + 1 < heapSize && heap[c + 1] < heap[c]) c++;
+        if (heap[c] >= score) break;
+        heap[i] = heap[c];
+        i = c;
+      }
+      heap[i] = score;
+    }
   }
 
   /** Index of the state equal to {@code s} (null without an LM), created empty when new. */

@@ -191,6 +191,24 @@ class LatticeSearchTest {
   }
 
   @Test
+  void boundPruningKeepsExactlyTheStatesThePlainBeamKeeps() {
+    // Invariant of the bound (see Layer.bound): for k = 1 skipping paths below the running lower bound on
+    // the beam-th state score changes nothing. The k = 2 search does not use the bound, and its best path
+    // is decided by the same per-state best scores, so both must agree at every beam.
+    long seed = 1234L;
+    SplittableRandom rnd = new SplittableRandom(seed);
+    BackoffModel lm = NaiveBackoffLm.random(rnd, vocab(20), 3, 1500).model();
+    for (int u = 0; u < 150; u++) {
+      RandomUtterances r = RandomUtterances.draw(rnd, 20, 15, 20, 0.3);
+      ConfusionNetwork net = ConfusionNetwork.build(r.hypotheses, r.posteriors, 200);
+      LatticeSettings s = new LatticeSettings(0.5 + rnd.nextDouble() * 2, rnd.nextDouble() - 0.5, 1 + rnd.nextInt(8), 200);
+      double one = Lattices.searchKBest(net, r.hypotheses, r.posteriors, lm, s, 1).get(0).score();
+      double two = Lattices.searchKBest(net, r.hypotheses, r.posteriors, lm, s, 2).get(0).score();
+      assertThat(one).as("seed %d utterance %d %s", seed, u, s).isCloseTo(two, within(1e-9));
+    }
+  }
+
+  @Test
   void aBeamOfOneStillReturnsAPathAndSaysItWasLimited() {
     long seed = 5L;
     SplittableRandom rnd = new SplittableRandom(seed);
