@@ -17,7 +17,9 @@ import steelyard.lm.LmState;
  * so keeping the best k partial paths of each state loses nothing, and with an unbounded beam the search is
  * exact. Partial paths of one state with the same text keep only the better one, so the k results are k
  * distinct texts. The beam keeps the {@code beam} states with the best partial score after each slot
- * (ties: the state created first). Empty arcs leave the LM state unchanged; arcs of posterior 0 are never
+ * (ties: the state created first); for k = 1 and λ′ ≥ 0 an extension that cannot reach a running lower bound
+ * on the slot's beam-th state score is skipped, mostly before its LM query, which keeps exactly the same
+ * states ({@link Layer#bound}). Arcs are tried by descending posterior. Empty arcs leave the LM state unchanged; arcs of posterior 0 are never
  * taken. When λ′ = 0 the LM is not consulted and all paths share one state: the search then picks per slot
  * the arc maximising ln p + μ′·[non-empty], which with μ′ = 0 is consensus decoding.
  *
