@@ -152,6 +152,31 @@ class ConfusionNetworkTest {
     assertThat(Lattices.consensus(hyps, new double[] {0.5, 0.3, 0.2}, LatticeSettings.consensusOnly()).tokens()).isEmpty();
   }
 
+  @Test
+  void rejectsPosteriorsThatCannotWeighHypotheses() {
+    List<List<String>> hyps = List.of(words("a"), words("b"));
+    org.assertj.core.api.Assertions.assertThatIllegalArgumentException()
+        .isThrownBy(() -> ConfusionNetwork.build(hyps, new double[] {0.5}, 10)).withMessageContaining("posteriors");
+    org.assertj.core.api.Assertions.assertThatIllegalArgumentException()
+        .isThrownBy(() -> ConfusionNetwork.build(hyps, new double[] {0.5, -0.1}, 10)).withMessageContaining(">= 0");
+    org.assertj.core.api.Assertions.assertThatIllegalArgumentException()
+        .isThrownBy(() -> ConfusionNetwork.build(hyps, new double[] {Double.NaN, 1}, 10));
+    org.assertj.core.api.Assertions.assertThatIllegalArgumentException()
+        .isThrownBy(() -> ConfusionNetwork.build(hyps, new double[] {0, 0}, 10)).withMessageContaining("sum to 0");
+    org.assertj.core.api.Assertions.assertThatIllegalArgumentException()
+        .isThrownBy(() -> ConfusionNetwork.build(List.of(), new double[0], 10));
+  }
+
+  @Test
+  void sameInputsGiveTheSameNetwork() {
+    long seed = 555L;
+    RandomUtterances r = RandomUtterances.draw(new SplittableRandom(seed), 10, 15, 40, 0.3);
+    ConfusionNetwork a = ConfusionNetwork.build(r.hypotheses, r.posteriors, 1000);
+    ConfusionNetwork b = ConfusionNetwork.build(r.hypotheses, r.posteriors, 1000);
+    assertThat(b.slotCount()).as("seed %d", seed).isEqualTo(a.slotCount());
+    for (int s = 0; s < a.slotCount(); s++) assertThat(slot(b, s)).as("seed %d", seed).isEqualTo(slot(a, s));
+  }
+
   private static String slot(ConfusionNetwork net, int s) {
     StringBuilder b = new StringBuilder();
     for (int a = net.arcStart(s); a < net.arcEnd(s); a++) {
