@@ -19,8 +19,8 @@ import steelyard.lm.LmState;
  * distinct texts. The beam keeps the {@code beam} states with the best partial score after each slot
  * (ties: the state created first); for k = 1 and λ′ ≥ 0 an extension that cannot reach a running lower bound
  * on the slot's beam-th state score is skipped, mostly before its LM query, which keeps exactly the same
- * states ({@link Layer#bound}). Arcs are tried by descending posterior. Empty arcs leave the LM state unchanged; arcs of posterior 0 are never
- * taken. When λ′ = 0 the LM is not consulted and all paths share one state: the search then picks per slot
+ * states ({@link Layer#bound}). Arcs are tried by descending posterior. Empty arcs leave the LM state
+ * unchanged; arcs of posterior 0 are never taken. When λ′ = 0 the LM is not consulted and all paths share one state: the search then picks per slot
  * the arc maximising ln p + μ′·[non-empty], which with μ′ = 0 is consensus decoding.
  *
  * <p>Storage: partial paths in a pool of parallel primitive arrays (score, Σ ln posterior, LM log-prob,
