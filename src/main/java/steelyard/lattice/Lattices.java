@@ -99,15 +99,32 @@ public final class Lattices {
    * at any unit; for OCR lines pass grapheme clusters with the space token.
    */
   public static LatticeChoice vote(List<List<String>> outputs, double[] systemWeights, double[] confidences) {
+    double[] p = votePosteriors(outputs, systemWeights, confidences);
+    return consensus(outputs, p, new LatticeSettings(0, 0, LatticeSettings.DEFAULT_BEAM, outputs.size()));
+  }
+
+  /**
+   * Weighted voting with the LM in the search: the lattice search over the voting network (posterior ∝
+   * system weight × confidence), with λ′, μ′ and the beam of {@code settings}; every output enters.
+   */
+  public static LatticeChoice vote(
+      List<List<String>> outputs, double[] systemWeights, double[] confidences, LanguageModel lm, LatticeSettings settings) {
+    double[] p = votePosteriors(outputs, systemWeights, confidences);
+    LatticeSettings all = new LatticeSettings(settings.lmWeight(), settings.lengthWeight(), settings.beam(), outputs.size());
+    return search(outputs, p, lm, all);
+  }
+
+  private static double[] votePosteriors(List<List<String>> outputs, double[] systemWeights, double[] confidences) {
+    if (outputs.isEmpty()) throw new IllegalArgumentException("no outputs to vote over");
     if (systemWeights.length != outputs.size() || confidences.length != outputs.size())
       throw new IllegalArgumentException("need one system weight and one confidence per output: " + outputs.size());
     double[] p = new double[outputs.size()];
     double sum = 0;
     for (int i = 0; i < p.length; i++) sum += p[i] = systemWeights[i] * confidences[i];
-    if (!(sum > 0) || Double.isInfinite(sum)) throw new IllegalArgumentException("system weights × confidences must have a positive finite sum");
+    if (!(sum > 0) || Double.isInfinite(sum))
+      throw new IllegalArgumentException("system weights × confidences must have a positive finite sum");
     for (int i = 0; i < p.length; i++) p[i] /= sum;
-    LatticeSettings s = new LatticeSettings(0, 0, LatticeSettings.DEFAULT_BEAM, Math.max(outputs.size(), 1));
-    return consensus(outputs, p, s);
+    return p;
   }
 
   /**

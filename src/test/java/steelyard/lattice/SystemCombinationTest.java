@@ -64,6 +64,24 @@ class SystemCombinationTest {
   }
 
   @Test
+  void voteWithTheLmCanOverruleAMajority() {
+    // Worked by hand: "pears" has 2 of 3 votes (ln 2/3 = −0.41) against "plums" (ln 1/3 = −1.10); the model
+    // gives log10 P(pears | of) = −4 and log10 P(plums | of) = −0.1, so with λ′ = 1 plums wins by ≈ 8.3 nats.
+    NaiveBackoffLm n = new NaiveBackoffLm(2);
+    n.add(-99, 0, "<s>");
+    n.add(-1, 0, "</s>");
+    n.add(-3, 0, "<unk>");
+    for (String w : words("crates of pears plums")) n.add(-1, 0, w);
+    n.add(-0.1, 0, "of", "plums");
+    n.add(-4, 0, "of", "pears");
+    List<List<String>> outputs = List.of(words("crates of pears"), words("crates of pears"), words("crates of plums"));
+    double[] w = {1, 1, 1};
+    assertThat(Lattices.vote(outputs, w).tokens()).isEqualTo(words("crates of pears"));
+    assertThat(Lattices.vote(outputs, w, w, n.model(), new LatticeSettings(1, 0, 64, 1)).tokens()).isEqualTo(words("crates of plums"));
+    assertThat(Lattices.vote(outputs, w, w, null, new LatticeSettings(0, 0, 64, 1)).tokens()).isEqualTo(words("crates of pears"));
+  }
+
+  @Test
   void systemWeightsAndConfidencesDecideAnEvenSplit() {
     // Worked by hand: posterior ∝ weight × confidence; 3×1 > 1×1 picks system 1; 1×0.3 < 1×0.9 picks system 2.
     List<List<String>> outputs = List.of(words("six trays"), words("six crates"));
