@@ -29,6 +29,11 @@ import steelyard.text.Vocabulary;
  * give the same result.
  */
 public final class CorpusScorer {
+  /**
+   * Largest alignment table (cells) built for the frequent-error lists: 16 M cells = 64 MB. Longer pairs are
+   * still counted exactly (same tie-breaking) but left out of those lists, with a warning.
+   */
+  static final long MAX_TABLE_CELLS = 16L << 20;
 
   /**
    * @param pick      which hypothesis is scored per utterance
@@ -82,6 +87,7 @@ public final class CorpusScorer {
     private final ErrorTallies tallies = new ErrorTallies();
     private final List<String> missingRefs = new ArrayList<>();
     private final List<String> warnings = new ArrayList<>();
+    private final List<String> untallied = new ArrayList<>();
     private final ToIntFunction<UtteranceHypotheses> chooser;
 
     Run(Map<String, Reference> refMap, ToIntFunction<UtteranceHypotheses> chooser) {
@@ -130,9 +136,17 @@ public final class CorpusScorer {
           }
         }
       }
-      Alignment al = aligner.alignment(r.ids, r.optional, h.ids, h.optional);
-      tallies.add(al, r.ids, h.ids);
-      EditCounts c = al.counts();
+      EditCounts c;
+      if ((long) (r.ids.length + 1) * (h.ids.length + 1) <= MAX_TABLE_CELLS) {
+        Alignment al = aligner.alignment(r.ids, r.optional, h.ids, h.optional);
+        tallies.add(al, r.ids, h.ids);
+        c = al.counts();
+      } else {
+        // Same counts without the full table; only the frequent-error lists miss this utterance.
+        aligner.measure(r.ids, r.optional, h.ids, h.optional);
+        c = new EditCounts(aligner.lastCorrect(), aligner.lastSubstitutions(), aligner.lastDeletions(), aligner.lastInsertions());
+        untallied.add(u.uttId());
+      }
       table.set(row, UtteranceScores.SCORED, (int) c.correct(), (int) c.substitutions(), (int) c.deletions(), (int) c.insertions());
       table.groups[row] = !ref.group().isEmpty() ? ref.group() : chosen.group();
       table.hypRank[row] = chosen.rank();
@@ -204,6 +218,8 @@ public final class CorpusScorer {
       }
       if (!missingRefs.isEmpty())
         warnings.add(missingRefs.size() + " hypothesis utterance(s) have no reference and were not scored, first: " + missingRefs.get(0));
+      if (!untallied.isEmpty())
+        warnings.add(untallied.size() + " utterance(s) too long for the frequent-error lists (counted in every total), first: " + untallied.get(0));
       if (totals.referenceTokens() == 0)
         warnings.add("the references have no tokens to score (N = 0): the error rate is undefined; " + totals.errors() + " error(s) counted");
     }

@@ -83,6 +83,23 @@ class CorpusScorerTest {
     }
 
     @Test
+    void veryLongUtterancesAreCountedExactlyButLeftOutOfTheErrorLists() {
+      StringBuilder ref = new StringBuilder();
+      StringBuilder hyp = new StringBuilder();
+      for (int i = 0; i < 4200; i++) {
+        ref.append("w").append(i % 50).append(' ');
+        hyp.append(i % 7 == 0 ? "x" : "w" + (i % 50)).append(' ');
+      }
+      CorpusScore s = score(Pick.FIRST, MissingHypothesisPolicy.ALL_DELETIONS, refs("u1", ref.toString()), nbest("u1", hyp.toString()));
+      // Worked by hand: every 7th of 4200 words is replaced by x, which matches nothing, so each of the 600 x is
+      // an S or an I: cost >= S + I >= 600, reached by 600 substitutions; cost = 600 then forces D = 0, and
+      // I = D + |hyp| - |ref| = 0, so the counts are C 3600, S 600 whatever the tie-breaking.
+      assertThat(s.totals()).isEqualTo(new EditCounts(3600, 600, 0, 0));
+      assertThat(s.substitutions()).isEmpty();
+      assertThat(s.warnings()).anyMatch(w -> w.contains("too long"));
+    }
+
+    @Test
     void optionalTokensCountNeitherInNNorAsErrors() {
       CorpusScore s = score(Pick.FIRST, MissingHypothesisPolicy.ALL_DELETIONS,
           refs("u1", "uh six pears"), nbest("u1", "six um pears"));
