@@ -43,7 +43,7 @@ import steelyard.text.Unit;
     description = {
       "Score hypotheses against references: WER/CER with a 95%% bootstrap interval, sentence error rate, groups,"
           + " most frequent errors and missing utterances.",
-      "The plain-text report goes to stdout (to stderr when --json is '-')."
+      "The plain-text report goes to stdout (to stderr when --json or --csv is '-')."
     })
 public final class ScoreCommand implements Callable<Integer> {
   /** Upper limit of {@code --resamples}: the resample rates are held in memory (8 bytes each). */
@@ -78,7 +78,7 @@ public final class ScoreCommand implements Callable<Integer> {
   @Option(names = "--json", paramLabel = "FILE|-", description = "Write the JSON summary to FILE, or to stdout with '-'.")
   Path json;
 
-  @Option(names = "--csv", paramLabel = "FILE", description = "Write the per-utterance table as CSV.")
+  @Option(names = "--csv", paramLabel = "FILE|-", description = "Write the per-utterance table as CSV to FILE, or to stdout with '-'.")
   Path csv;
 
   @Option(names = "--spreadsheet-safe", paramLabel = "true|false", arity = "1", defaultValue = "true",
@@ -115,13 +115,13 @@ public final class ScoreCommand implements Callable<Integer> {
 
     if (csv != null) AtomicOutput.writeText(csv, out -> ScoreReport.csv(score, out, spreadsheetSafe));
     if (json != null) JsonOutput.write(json, ScoreReport.json(score, context));
-    printReport(json, ScoreReport.text(score, context));
+    printReport(OutputPaths.isStdout(csv) ? csv : json, ScoreReport.text(score, context));
     return Main.OK;
   }
 
-  /** Prints a text report in UTF-8 whatever the platform charset: to stdout, or to stderr when JSON takes stdout. */
-  static void printReport(Path json, String text) {
-    PrintStream target = json != null && json.toString().equals("-") ? System.err : System.out;
+  /** Prints a text report in UTF-8 whatever the platform charset: to stdout, or to stderr when {@code other} is stdout. */
+  static void printReport(Path other, String text) {
+    PrintStream target = OutputPaths.isStdout(other) ? System.err : System.out;
     PrintWriter w = new PrintWriter(new OutputStreamWriter(target, StandardCharsets.UTF_8));
     w.print(text);
     w.flush();

@@ -14,13 +14,19 @@ public final class OutputPaths {
 
   /**
    * Throws an {@link InputException} naming the option when an output path (keyed by its option, null values
-   * ignored, {@code -} = stdout never clashes) is an input path or another output's path.
+   * ignored) is an input path or another output's path, or when more than one output is {@code -} (stdout).
    */
   public static void refuseClashes(Map<String, Path> outputsByOption, List<Path> inputs) {
     List<Map.Entry<String, Path>> seen = new ArrayList<>();
+    String stdoutTaken = null;
     for (Map.Entry<String, Path> out : outputsByOption.entrySet()) {
       Path p = out.getValue();
-      if (p == null || p.toString().equals("-")) continue;
+      if (p != null && isStdout(p)) {
+        if (stdoutTaken != null)
+          throw InputException.option(out.getKey(), "standard output ('-') is already the output of " + stdoutTaken, "a file name");
+        stdoutTaken = out.getKey();
+      }
+      if (p == null || isStdout(p)) continue;
       for (Path in : inputs) {
         if (in != null && same(p, in))
           throw InputException.option(out.getKey(), "output " + p + " is also an input file", "a different output path");
@@ -31,6 +37,11 @@ public final class OutputPaths {
       }
       seen.add(out);
     }
+  }
+
+  /** Whether {@code p} is {@code -}, standard output. */
+  public static boolean isStdout(Path p) {
+    return p != null && p.toString().equals("-");
   }
 
   private static boolean same(Path a, Path b) {

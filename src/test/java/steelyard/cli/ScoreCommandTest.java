@@ -117,6 +117,15 @@ class ScoreCommandTest {
     }
 
     @Test
+    void csvToStdoutMovesTheTextReportToStderrAndOnlyOneOutputMayTakeStdout() throws IOException {
+      Result r = run("score", "--hyps", hyps().toString(), "--refs", refs().toString(), "--csv", "-");
+      assertThat(r.code()).as(r.err()).isZero();
+      assertThat(r.out()).startsWith("utt_id,group,status,");
+      assertThat(r.err()).contains(ReportText.REVIEW_NOTE);
+      assertThat(run("score", "--hyps", hyps().toString(), "--refs", refs().toString(), "--csv", "-", "--json", "-").code()).isEqualTo(2);
+    }
+
+    @Test
     void csvTableIsSpreadsheetSafeByDefault() throws IOException {
       Path csv = dir.resolve("table.csv");
       assertThat(run("score", "--hyps", hyps().toString(), "--refs", refs().toString(), "--csv", csv.toString()).code()).isZero();

@@ -33,6 +33,13 @@ class OutputPathsTest {
   }
 
   @Test
+  void refusesTwoOutputsOnStdout() {
+    assertThatThrownBy(() -> OutputPaths.refuseClashes(outputs("-", "-"), List.of()))
+        .isInstanceOf(InputException.class)
+        .hasMessageStartingWith("--csv: ");
+  }
+
+  @Test
   void acceptsStdoutAndDistinctFiles() {
     assertThatCode(() -> OutputPaths.refuseClashes(outputs("-", "table.csv"), List.of(Path.of("refs.csv"), Path.of("-"))))
         .doesNotThrowAnyException();
