@@ -199,6 +199,16 @@ public final class BackoffModel implements LanguageModel {
     return e;
   }
 
+  /** Entry index (order k−1) of the prefix of entry {@code i} of order {@code k}; −1 for unigrams. */
+  int parentEntry(int k, int i) {
+    return parent[k - 1][i];
+  }
+
+  /** Last token id of entry {@code i} of order {@code k}. */
+  int lastWord(int k, int i) {
+    return word[k - 1][i];
+  }
+
   /** Stored log10 probability of entry {@code i} of order {@code k}; NaN for a context-only entry. */
   public double log10Prob(int k, int i) {
     return log10Prob[k - 1][i];
@@ -294,6 +304,22 @@ public final class BackoffModel implements LanguageModel {
       tokens.add(token);
       ids.put(token, id);
       return id;
+    }
+
+    /**
+     * Presizes the storage of order {@code k} (1-based) for about {@code n} entries, e.g. from the counts of an
+     * ARPA {@code \data\} section; only effective before the first entry of that order. Purely a speed hint.
+     */
+    public Builder expectEntries(int k, int n) {
+      int i = k - 1;
+      if (i < 0 || i >= order || n <= 0 || !word[i].isEmpty()) return this;
+      parent[i].ensureCapacity(n);
+      word[i].ensureCapacity(n);
+      prob[i].ensureCapacity(n);
+      backoff[i].ensureCapacity(n);
+      index[i] = new Long2IntOpenHashMap(n);
+      index[i].defaultReturnValue(-1);
+      return this;
     }
 
     public Builder metadata(String line) {
