@@ -9,7 +9,8 @@ import steelyard.lm.arpa.ArpaWriter;
 
 /**
  * Loads and saves language models by file name: {@code .arpa} / {@code .arpa.gz} (log10 text interchange
- * format) or {@code .bin} (the project's binary format). Bad files throw {@link steelyard.io.InputException}.
+ * format, read by {@link ArpaReader}, written by {@link ArpaWriter}) or {@code .bin} (the project's binary format,
+ * {@link BinaryModelFile}). Bad files throw {@link steelyard.io.InputException}; saving is atomic.
  */
 public final class ModelFiles {
   /** How a file is read: the floor for closed-vocabulary ARPA files, where warnings go, optional progress. */
@@ -44,12 +45,20 @@ public final class ModelFiles {
     return load(file, LoadOptions.DEFAULT);
   }
 
-  /** Loads a model for querying with explicit options. */
-  public static LanguageModel load(Path file, LoadOptions options) {
-    return loadExact(file, options);
+  /** Loads a model for querying with explicit options: always a {@link CompactModel}. */
+  public static CompactModel load(Path file, LoadOptions options) {
+    switch (kind(file)) {
+      case ARPA:
+        return CompactModel.of(ArpaReader.read(file, options.unknownFloorLog10(), options.warnings(), options.progress()));
+      default:
+        return BinaryModelFile.read(file);
+    }
   }
 
-  /** Loads a model in its exact editable form (for mixing, pruning, converting). */
+  /**
+   * Loads a model in its exact editable form (for mixing, pruning, converting). From {@code .bin} the model is
+   * rebuilt from the stored single-precision values, so it equals the ARPA model it came from to about 7 digits.
+   */
   public static BackoffModel loadExact(Path file) {
     return loadExact(file, LoadOptions.DEFAULT);
   }
@@ -60,7 +69,7 @@ public final class ModelFiles {
       case ARPA:
         return ArpaReader.read(file, options.unknownFloorLog10(), options.warnings(), options.progress());
       default:
-        throw InputException.inFile(file, "binary model files are not readable yet", "an .arpa file");
+        return BinaryModelFile.read(file).toBackoffModel();
     }
   }
 
@@ -71,7 +80,7 @@ public final class ModelFiles {
         ArpaWriter.write(model, file);
         return;
       default:
-        throw InputException.inFile(file, "binary model files are not writable yet", "an .arpa file");
+        BinaryModelFile.write(CompactModel.of(model), file);
     }
   }
 }

@@ -13,6 +13,15 @@ public final class RandomModels {
   private RandomModels() {}
 
   public static BackoffModel model(SplittableRandom rnd, int order, int v, int ngramsPerOrder, boolean withUnk) {
+    return model(rnd, order, v, ngramsPerOrder, withUnk, false);
+  }
+
+  /**
+   * As {@link #model(SplittableRandom, int, int, int, boolean)}; when {@code closed}, every contiguous part of a
+   * listed n-gram is listed too (as in files from the usual estimators), otherwise prefixes and suffixes may
+   * be missing (as in pruned files).
+   */
+  public static BackoffModel model(SplittableRandom rnd, int order, int v, int ngramsPerOrder, boolean withUnk, boolean closed) {
     BackoffModel.Builder b = new BackoffModel.Builder(order, Unit.WORD, NormalisationOptions.EXACT);
     b.metadata("steelyard.test.seed-model=random");
     int[] words = new int[v + 3];
@@ -31,7 +40,15 @@ public final class RandomModels {
         int[] g = new int[k];
         g[0] = rnd.nextInt(8) == 0 ? words[0] : words[1 + rnd.nextInt(words.length - 1)];
         for (int j = 1; j < k; j++) g[j] = words[1 + rnd.nextInt(words.length - 1)];
-        if (g[0] == words[0] || rnd.nextInt(4) > 0) {
+        if (closed) {
+          for (int len = 1; len <= k; len++) {
+            for (int i = 0; i + len <= k; i++) {
+              int[] part = java.util.Arrays.copyOfRange(g, i, i + len);
+              if (len == 1 && part[0] == words[2] && !withUnk) continue;
+              if (!b.contains(part)) b.add(part, part.length == 1 && part[0] == words[0] ? -99 : rnd.nextDouble(-4, 0), len < order ? rnd.nextDouble(-1.5, 0.5) : 0);
+            }
+          }
+        } else if (g[0] == words[0] || rnd.nextInt(4) > 0) {
           b.add(g, rnd.nextDouble(-4, 0), k < order ? rnd.nextDouble(-1.5, 0.5) : 0);
         } else {
           b.add(g, rnd.nextDouble(-4, 0), 0);
