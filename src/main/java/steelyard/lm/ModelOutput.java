@@ -18,6 +18,14 @@ public final class ModelOutput {
     void write(OutputStream out) throws IOException;
   }
 
+  private static void keepPermissions(Path target, Path tmp) throws IOException {
+    if (!tmp.getFileSystem().supportedFileAttributeViews().contains("posix")) return;
+    java.util.Set<java.nio.file.attribute.PosixFilePermission> perms = Files.exists(target)
+        ? Files.getPosixFilePermissions(target)
+        : java.nio.file.attribute.PosixFilePermissions.fromString("rw-r--r--");
+    Files.setPosixFilePermissions(tmp, perms);
+  }
+
   /** Writes {@code file} through {@code body}; on failure the old file (if any) is left untouched. */
   public static void writeBytes(Path file, Body body) {
     Path abs = file.toAbsolutePath().normalize();
@@ -26,6 +34,7 @@ public final class ModelOutput {
     Path tmp = null;
     try {
       tmp = Files.createTempFile(dir, "." + abs.getFileName() + ".", ".tmp");
+      keepPermissions(abs, tmp);
       try (OutputStream os = new BufferedOutputStream(Files.newOutputStream(tmp), 1 << 16)) {
         body.write(os);
       }

@@ -70,6 +70,7 @@ public final class ArpaReader {
     String line;
     while (true) {
       line = next(in);
+      if (line == null && lineNo == 0) throw InputException.inFile(file, "empty file", "an ARPA model file");
       if (line == null) throw InputException.at(file, Math.max(1, lineNo), "no \\data\\ line found", "an ARPA file starting with \\data\\ (after optional comment lines)");
       String t = line.strip();
       if (t.equals("\\data\\")) break;
@@ -220,7 +221,7 @@ public final class ArpaReader {
 
   private InputException wrongOrder(String line, int k, int words) {
     return InputException.at(file, lineNo, "n-gram of the wrong order in section \\" + k + "-grams: ('" + clip(line.strip()) + "' has "
-        + Math.max(0, words) + " words)", EXPECTED_ENTRY + " with k = " + k);
+        + Math.max(0, words) + " fields after the probability)", EXPECTED_ENTRY + " with k = " + k);
   }
 
   private InputException truncated(String where) {

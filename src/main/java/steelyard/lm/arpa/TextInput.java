@@ -15,10 +15,10 @@ import java.util.zip.ZipException;
 import steelyard.io.InputException;
 
 /** Opens a model text file: gzip by the {@code .gz} name, strict UTF-8 (undecodable bytes are an error). */
-final class TextInput {
+public final class TextInput {
   private TextInput() {}
 
-  static BufferedReader open(Path file) {
+  public static BufferedReader open(Path file) {
     InputStream raw;
     if (Files.isDirectory(file)) throw InputException.inFile(file, "is a directory", "a model file");
     try {
