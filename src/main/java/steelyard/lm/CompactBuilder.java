@@ -52,17 +52,13 @@ final class CompactBuilder {
       parent[4 * parentSlots + 3] = (int) total;
       int[] a = new int[(int) total * stride + (top ? 0 : 4)];
       for (int s = 0; s < total; s++) a[s * stride] = CompactModel.EMPTY;
+      int[] entryAt = robinHood(m, k, parent, parentSlot, (int) total);
       slotOf[k - 1] = new int[n];
-      for (int i = 0; i < n; i++) {
-        int c = parentSlot[i];
-        int start = parent[4 * c + 3];
-        int size = parent[4 * c + 7] - start;
-        int w = m.lastWord(k, i);
-        int h = CompactModel.home(w, size);
-        while (a[(start + h) * stride] != CompactModel.EMPTY) if (++h == size) h = 0;
-        int slot = start + h;
+      for (int slot = 0; slot < total; slot++) {
+        int i = entryAt[slot];
+        if (i < 0) continue;
         slotOf[k - 1][i] = slot;
-        a[slot * stride] = w;
+        a[slot * stride] = m.lastWord(k, i);
         a[slot * stride + 1] = Float.floatToIntBits((float) m.log10Prob(k, i));
         if (!top) a[slot * stride + 2] = Float.floatToIntBits((float) m.log10Backoff(k, i));
       }
@@ -75,6 +71,45 @@ final class CompactBuilder {
     java.util.List<String> meta = ModelMetadata.linesFor(m, m.metadata());
     CompactModel draft = new CompactModel(order, meta, tokens, levels, counts, m.unknownFloorLog10(), false);
     return new CompactModel(order, meta, tokens, levels, counts, m.unknownFloorLog10(), suffixClosed(m, draft));
+  }
+
+  /**
+   * Places the entries of order k in their parents' child tables by Robin Hood insertion (an entry displaces a
+   * resident that is closer to its home slot), so that a lookup can stop as soon as it meets a resident closer
+   * to home than the probe distance: most queries are misses, and this keeps them short. Returns the entry
+   * index per slot (−1 = empty). Deterministic for a given entry order.
+   */
+  private static int[] robinHood(BackoffModel m, int k, int[] parent, int[] parentSlot, int total) {
+    int[] entryAt = new int[total];
+    Arrays.fill(entryAt, -1);
+    for (int i = 0; i < parentSlot.length; i++) {
+      int c = parentSlot[i];
+      int start = parent[4 * c + 3];
+      int size = parent[4 * c + 7] - start;
+      int cur = i;
+      int w = m.lastWord(k, cur);
+      int pos = CompactModel.home(w, size);
+      int d = 0;
+      while (true) {
+        int r = entryAt[start + pos];
+        if (r < 0) {
+          entryAt[start + pos] = cur;
+          break;
+        }
+        int rw = m.lastWord(k, r);
+        int dr = pos - CompactModel.home(rw, size);
+        if (dr < 0) dr += size;
+        if (dr < d) {
+          entryAt[start + pos] = cur;
+          cur = r;
+          w = rw;
+          d = dr;
+        }
+        if (++pos == size) pos = 0;
+        d++;
+      }
+    }
+    return entryAt;
   }
 
   /** Whether every entry of order ≥ 2 has its suffix (first word dropped) as an entry. */

@@ -18,7 +18,8 @@ import steelyard.text.Unit;
  * </ul>
  * The children of a context slot c (the n-grams one order higher whose prefix is c) occupy the slots
  * {@code [first(c), first(c+1))} of the next order, laid out as a small open-addressing table keyed by word
- * id (multiplicative hash, linear probing, ≈ 80 % full; tables of up to 3 children are full and scanned). A slot
+ * id (multiplicative hash, linear probing in Robin Hood order so that a miss stops early, ≈ 80 % full; tables of
+ * up to 3 children are full). A slot
  * number is the n-gram's id, and {@link LmState#contextIndex}{@code [j]} holds the slot of the history suffix of
  * length j+1, so scoring a token probes at most one small table per order and never re-looks-up the
  * context. A context-only entry (an unlisted prefix in a pruned file) has P = NaN.
@@ -131,26 +132,41 @@ public final class CompactModel implements LanguageModel {
     return unknownLog10(w) + bow;
   }
 
-  /** One bottom-up pass: valid when every entry's suffix is an entry, so the chain of found entries has no gaps. */
+  /**
+   * One bottom-up pass, valid when every entry's suffix is an entry: the found entries then form a chain
+   * without gaps, a miss at one order means misses at all higher ones, and a found bigram implies its
+   * unigram. The first probe of the highest order is loaded before the lower orders are searched, so that its
+   * cache miss overlaps theirs; the unigram record is read only when no higher order decides.
+   */
   private double scoreClosed(LmState in, int w, LmState out) {
     final int hi = in.length;
-    final int[] uni = levels[0];
-    if (uni[w << 2] < 0) {
-      double bow = 0;
-      for (int j = 1; j <= hi; j++) bow += backoff(j - 1, in.contextIndex[j - 1]);
-      out.length = 0;
-      out.handle = 0;
-      return unknownLog10(w) + bow;
+    int topStart = 0;
+    int topSize = 0;
+    int topPos = 0;
+    int topFirst = EMPTY;
+    if (hi >= 2) {
+      int c = in.contextIndex[hi - 1];
+      int[] p = levels[hi - 1];
+      topStart = p[(c << 2) + 3];
+      topSize = p[((c + 1) << 2) + 3] - topStart;
+      if (topSize > 0) {
+        topPos = home(w, topSize);
+        topFirst = levels[hi][(topStart + topPos) << (hi == order - 1 ? 1 : 2)];
+      }
     }
-    double best = Float.intBitsToFloat(uni[(w << 2) + 1]);
+    double best = Double.NaN;
     double bow = 0;
     int top = 0;
     int ctx = hi > 0 ? in.contextIndex[0] : 0;
-    if (order > 1) out.contextIndex[0] = w;
     for (int j = 1; j <= hi; j++) {
       int next = j < hi ? in.contextIndex[j] : 0; // read before out.contextIndex[j] may overwrite it
       float b = backoff(j - 1, ctx);
-      int e = find(j, ctx, w);
+      int e;
+      if (j == hi && j >= 2) {
+        e = probe(j, topStart, topSize, topPos, topFirst, w);
+      } else {
+        e = find(j, ctx, w);
+      }
       if (e < 0) {
         bow += b;
         for (int jj = j + 1; jj <= hi; jj++) bow += backoff(jj - 1, in.contextIndex[jj - 1]);
@@ -167,8 +183,19 @@ public final class CompactModel implements LanguageModel {
       top = j;
       ctx = next;
     }
+    final int[] uni = levels[0];
+    if (top == 0 && uni[w << 2] < 0) {
+      out.length = 0;
+      out.handle = 0;
+      return unknownLog10(w) + bow;
+    }
+    if (Double.isNaN(best)) {
+      float pu = Float.intBitsToFloat(uni[(w << 2) + 1]);
+      best = Float.isNaN(pu) ? unknownLog10(w) : pu;
+    }
+    if (order > 1) out.contextIndex[0] = w;
     finishState(in, w, out, Math.min(top, order - 2) + 1);
-    return Double.isNaN(best) ? unknownLog10(w) + bow : best + bow;
+    return best + bow;
   }
 
   /** Exact semantics for any model: score top-down, then advance as {@link BackoffModel} does. */
@@ -213,15 +240,25 @@ public final class CompactModel implements LanguageModel {
     int start = parent[(ctx << 2) + 3];
     int size = parent[((ctx + 1) << 2) + 3] - start;
     if (size == 0) return -1;
+    int pos = home(w, size);
+    return probe(level, start, size, pos, levels[level][(start + pos) << (level == order - 1 ? 1 : 2)], w);
+  }
+
+  /** Robin Hood probe of a child table whose first candidate word {@code first} (at {@code pos}) is already loaded. */
+  private int probe(int level, int start, int size, int pos, int first, int w) {
+    if (size == 0) return -1;
     int[] a = levels[level];
     int shift = level == order - 1 ? 1 : 2;
-    int h = home(w, size);
-    for (int i = 0; i < size; i++) {
-      int slot = start + h;
-      int x = a[slot << shift];
-      if (x == w) return slot;
+    int x = first;
+    for (int d = 0; d < size; d++) {
+      if (x == w) return start + pos;
       if (x == EMPTY) return -1;
-      if (++h == size) h = 0;
+      // A resident closer to its home than we are to ours means w is absent (Robin Hood order).
+      int dx = pos - home(x, size);
+      if (dx < 0) dx += size;
+      if (dx < d) return -1;
+      if (++pos == size) pos = 0;
+      x = a[(start + pos) << shift];
     }
     return -1;
   }
