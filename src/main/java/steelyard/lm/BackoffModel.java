@@ -270,6 +270,9 @@ public final class BackoffModel implements LanguageModel {
     private final Long2IntOpenHashMap[] index;
     private double unknownFloorLog10 = DEFAULT_UNKNOWN_FLOOR_LOG10;
     private boolean built;
+    private final int[] cachedPrefix = new int[6];
+    private final int[] cachedEntry = new int[6];
+    private int cachedLength;
 
     /** A builder for a model of the given order (1 … 6); {@code <s>}, {@code </s>}, {@code <unk>} get ids 0, 1, 2. */
     public Builder(int order, Unit unit, NormalisationOptions normalisation) {
@@ -343,7 +346,19 @@ public final class BackoffModel implements LanguageModel {
         throw new IllegalArgumentException("n-gram length " + ngram.length + " not in 1.." + order);
       if (Double.isNaN(log10Probability)) throw new IllegalArgumentException("log10 probability is NaN");
       int p = -1;
-      for (int j = 0; j < ngram.length - 1; j++) p = entry(j, p, ngram[j]);
+      boolean same = true;
+      for (int j = 0; j < ngram.length - 1; j++) {
+        // Files list n-grams grouped by context: reuse the previous call's prefix entries while they match.
+        same &= j < cachedLength && cachedPrefix[j] == ngram[j];
+        if (same) {
+          p = cachedEntry[j];
+        } else {
+          p = entry(j, p, ngram[j]);
+          cachedPrefix[j] = ngram[j];
+          cachedEntry[j] = p;
+        }
+      }
+      cachedLength = ngram.length - 1;
       int k = ngram.length - 1;
       long key = key(p, ngram[k]);
       int e = index[k].get(key);

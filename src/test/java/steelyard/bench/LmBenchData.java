@@ -93,18 +93,23 @@ public final class LmBenchData {
     for (var e : counts[0].long2IntEntrySet()) {
       builder.add(new int[] {id[(int) e.getLongKey()]}, Math.log10((double) e.getIntValue() / tokens), -0.3);
     }
-    for (var e : counts[1].long2IntEntrySet()) {
-      long k = e.getLongKey();
+    // n-grams grouped by context (sorted keys), as estimators usually write ARPA files
+    for (long k : sortedKeys(counts[1])) {
       int h = (int) (k >>> 21);
-      double p = (double) e.getIntValue() / history.get(h);
+      double p = (double) counts[1].get(k) / history.get(h);
       builder.add(new int[] {id[h], id[(int) (k & 0x1fffff)]}, Math.log10(p * 0.8), -0.2);
     }
-    for (var e : counts[2].long2IntEntrySet()) {
-      long k = e.getLongKey();
-      double p = (double) e.getIntValue() / history.get((1L << 62) | (k >>> 21));
+    for (long k : sortedKeys(counts[2])) {
+      double p = (double) counts[2].get(k) / history.get((1L << 62) | (k >>> 21));
       builder.add(new int[] {id[(int) (k >>> 42)], id[(int) ((k >>> 21) & 0x1fffff)], id[(int) (k & 0x1fffff)]}, Math.log10(p * 0.8), 0);
     }
     return builder.build();
+  }
+
+  private static long[] sortedKeys(Long2IntOpenHashMap counts) {
+    long[] keys = counts.keySet().toLongArray();
+    java.util.Arrays.sort(keys);
+    return keys;
   }
 
   /** Packs three ids below 2^21 into a long. */

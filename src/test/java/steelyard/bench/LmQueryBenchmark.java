@@ -47,7 +47,8 @@ public class LmQueryBenchmark {
   public void setUp() {
     exact = LmBenchData.model(LmBenchData.zipfStream(LmBenchData.TRAIN_TOKENS, LmBenchData.VOCAB, LmBenchData.EXPONENT, 1), LmBenchData.VOCAB);
     compact = CompactModel.of(exact);
-    int[] text = LmBenchData.zipfStream(LmBenchData.QUERY_TOKENS, LmBenchData.VOCAB, LmBenchData.EXPONENT, 2);
+    // exactly QUERY_TOKENS queries (words and </s>), to match @OperationsPerInvocation
+    int[] text = java.util.Arrays.copyOf(LmBenchData.zipfStream(LmBenchData.QUERY_TOKENS, LmBenchData.VOCAB, LmBenchData.EXPONENT, 2), LmBenchData.QUERY_TOKENS);
     ids = new int[text.length];
     sentenceStart = new boolean[text.length];
     boolean start = true;

@@ -33,6 +33,10 @@ public final class ArpaReader {
   private final Consumer<String> warnings;
   private final LoadProgress progress;
   private long lineNo;
+  /** The previous entry line of the current section and its field offsets (null at a section start). */
+  private String prevLine;
+  private final int[] prevStarts = new int[8];
+  private final int[] prevEnds = new int[8];
 
   private ArpaReader(Path file, double unknownFloorLog10, Consumer<String> warnings, LoadProgress progress) {
     this.file = file;
@@ -164,6 +168,7 @@ public final class ArpaReader {
         throw InputException.at(file, lineNo, "unexpected section header '" + clip(header) + "'", want);
       }
       if (ids.length != k) ids = new int[k];
+      prevLine = null;
       long seen = 0;
       header = null;
       String line;
@@ -213,7 +218,16 @@ public final class ArpaReader {
         throw InputException.at(file, lineNo, "bad log10 back-off weight '" + clip(line.substring(starts[k + 1], ends[k + 1])) + "'", "a finite decimal number");
       }
     }
-    for (int j = 0; j < k; j++) ids[j] = b.tokenId(line.substring(starts[j + 1], ends[j + 1]));
+    // ids still holds the previous line's ids: files are grouped by context, so most words repeat in place.
+    for (int j = 0; j < k; j++) {
+      int from = starts[j + 1];
+      int len = ends[j + 1] - from;
+      if (prevLine != null && prevEnds[j + 1] - prevStarts[j + 1] == len && line.regionMatches(from, prevLine, prevStarts[j + 1], len)) continue;
+      ids[j] = b.tokenId(line.substring(from, from + len));
+    }
+    prevLine = line;
+    System.arraycopy(starts, 0, prevStarts, 0, k + 1);
+    System.arraycopy(ends, 0, prevEnds, 0, k + 1);
     if (!b.add(ids, p, bow)) {
       throw InputException.at(file, lineNo, "duplicate " + k + "-gram '" + clip(line.substring(starts[1], ends[k])) + "'", "each n-gram listed once");
     }
