@@ -6,7 +6,7 @@ import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
-import steelyard.io.InputException;
+import steelyard.io.AtomicOutput;
 import steelyard.lm.BackoffModel;
 import steelyard.lm.ModelFiles;
 
@@ -22,9 +22,7 @@ public final class LmConvertCommand implements Callable<Integer> {
   @Override
   public Integer call() {
     ModelFiles.kind(out);
-    if (out.toAbsolutePath().normalize().equals(input.lm.toAbsolutePath().normalize())) {
-      throw InputException.option(out.toString(), "output path is the input model", "an output path different from --lm");
-    }
+    AtomicOutput.refuseOverwritingInput(out, input.lm);
     BackoffModel model = input.loadExact(spec.commandLine().getErr());
     ModelFiles.save(model, out);
     long n = 0;

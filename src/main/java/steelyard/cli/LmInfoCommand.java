@@ -26,6 +26,7 @@ public final class LmInfoCommand implements Callable<Integer> {
 
   @Override
   public Integer call() {
+    if (json != null) steelyard.io.AtomicOutput.refuseOverwritingInput(json, input.lm);
     CompactModel lm = input.load(spec.commandLine().getErr());
     ObjectNode o = describe(lm, input.lm);
     if (json != null) {

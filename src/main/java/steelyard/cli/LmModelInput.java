@@ -2,10 +2,7 @@ package steelyard.cli;
 
 import java.io.BufferedReader;
 import java.io.IOException;
-import java.io.OutputStreamWriter;
 import java.io.PrintWriter;
-import java.io.Writer;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.function.Function;
@@ -14,9 +11,10 @@ import me.tongfei.progressbar.ProgressBar;
 import me.tongfei.progressbar.ProgressBarBuilder;
 import picocli.CommandLine;
 import picocli.CommandLine.Option;
+import steelyard.io.AtomicOutput;
 import steelyard.io.InputException;
+import steelyard.io.InputFiles;
 import steelyard.lm.LanguageModel;
-import steelyard.lm.arpa.TextInput;
 import steelyard.text.NormalisationOptions;
 import steelyard.text.Normaliser;
 import steelyard.text.Unit;
@@ -24,7 +22,6 @@ import steelyard.lm.BackoffModel;
 import steelyard.lm.CompactModel;
 import steelyard.lm.LoadProgress;
 import steelyard.lm.ModelFiles;
-import steelyard.lm.ModelOutput;
 
 /** Options of the commands that read one model: {@code --lm}, {@code --unk-log10}, {@code --progress}. */
 public final class LmModelInput {
@@ -80,7 +77,7 @@ public final class LmModelInput {
 
   /** Calls {@code sink} with (line number, tokens) for every line of {@code text}. */
   static void forEachSentence(Path text, Function<String, List<String>> tokenizer, SentenceSink sink) {
-    try (BufferedReader in = TextInput.open(text)) {
+    try (BufferedReader in = InputFiles.open(text)) {
       long line = 0;
       String raw;
       while ((raw = in.readLine()) != null) sink.accept(++line, tokenizer.apply(raw));
@@ -103,28 +100,8 @@ public final class LmModelInput {
   }
 
   /** Writes UTF-8 text atomically to {@code target}, or to stdout when it is {@code -}. */
-  static void writeText(Path target, TextBody body) {
-    if (target.toString().equals("-")) {
-      try {
-        Writer w = new OutputStreamWriter(System.out, StandardCharsets.UTF_8);
-        body.write(w);
-        w.flush();
-      } catch (IOException e) {
-        throw new java.io.UncheckedIOException(e);
-      }
-      return;
-    }
-    ModelOutput.writeBytes(target, os -> {
-      Writer w = new OutputStreamWriter(os, StandardCharsets.UTF_8);
-      body.write(w);
-      w.flush();
-    });
-  }
-
-  /** Body of a text write. */
-  @FunctionalInterface
-  interface TextBody {
-    void write(Writer out) throws IOException;
+  static void writeText(Path target, AtomicOutput.WriterBody body) {
+    AtomicOutput.writeText(target, body);
   }
 
   /** Progress on stderr. */

@@ -31,6 +31,7 @@ public final class LmPerplexityCommand implements Callable<Integer> {
   @Override
   public Integer call() {
     PrintWriter err = spec.commandLine().getErr();
+    if (json != null) steelyard.io.AtomicOutput.refuseOverwritingInput(json, input.lm, text);
     CompactModel lm = input.load(err);
     var tokenizer = LmModelInput.tokenizer(lm, normalisation, spec.commandLine().getParseResult(), err);
     Perplexity ppl = new Perplexity(lm);

@@ -29,6 +29,7 @@ public final class LmSentenceScoresCommand implements Callable<Integer> {
   @Override
   public Integer call() {
     PrintWriter err = spec.commandLine().getErr();
+    steelyard.io.AtomicOutput.refuseOverwritingInput(csv, input.lm, text);
     CompactModel lm = input.load(err);
     var tokenizer = LmModelInput.tokenizer(lm, normalisation, spec.commandLine().getParseResult(), err);
     Perplexity scorer = new Perplexity(lm);

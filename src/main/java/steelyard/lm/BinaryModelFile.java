@@ -12,6 +12,7 @@ import java.nio.file.StandardOpenOption;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.zip.CRC32C;
+import steelyard.io.AtomicOutput;
 import steelyard.io.InputException;
 
 /**
@@ -54,7 +55,7 @@ public final class BinaryModelFile {
     crc.update(payload);
     ByteBuffer h = ByteBuffer.allocate(HEADER).order(ByteOrder.LITTLE_ENDIAN);
     h.put(MAGIC).putInt(VERSION).putInt(0).putLong(payload.length).putInt((int) crc.getValue()).putInt(0);
-    ModelOutput.writeBytes(file, os -> {
+    AtomicOutput.writeBytes(file, os -> {
       os.write(h.array());
       os.write(payload);
     });

@@ -36,8 +36,8 @@ class BadModelFilesTest {
         Arguments.of("missing-section.arpa", 23L, "missing section \\3-grams:"),
         Arguments.of("truncated-no-end.arpa", 26L, "file ends without \\end\\"),
         Arguments.of("truncated-entries.arpa", 24L, "file ends in section \\3-grams: after 1 of 2 announced n-grams"),
-        Arguments.of("binary-garbage.arpa", 1L, "binary data"),
-        Arguments.of("truncated.arpa.gz", 1L, "truncated gzip"),
+        Arguments.of("binary-garbage.arpa", 1L, "NUL character"),
+        Arguments.of("truncated.arpa.gz", 0L, "gzip data is truncated"),
         Arguments.of("not-gzip.arpa.gz", 0L, "not gzip data"),
         Arguments.of("empty.arpa", 0L, "empty file"),
         Arguments.of("wrong-magic.bin", 0L, "wrong magic bytes"),
@@ -73,7 +73,7 @@ class BadModelFilesTest {
     cl.setOut(new PrintWriter(out));
     int code = cl.execute("lm", "info", "--lm", file.toString());
     assertThat(code).isEqualTo(Main.BAD_INPUT);
-    String prefix = line > 0 ? file + ":" + line + ": " : file + ": ";
+    String prefix = line > 0 ? file + ":" + line + ":" : file + ": ";
     assertThat(err.toString()).startsWith("steelyard: " + prefix).contains(problem).contains("; expected ");
     assertThat(err.toString().strip().lines()).hasSize(1);
     assertThat(out.toString()).isEmpty();

@@ -8,6 +8,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.function.Consumer;
 import steelyard.io.InputException;
+import steelyard.io.InputFiles;
 import steelyard.lm.BackoffModel;
 import steelyard.lm.LoadProgress;
 import steelyard.lm.ModelMetadata;
@@ -48,7 +49,7 @@ public final class ArpaReader {
   /** Reads {@code file} (gzip when its name ends in {@code .gz}); warnings (closed vocabulary) go to {@code warnings}. */
   public static BackoffModel read(Path file, double unknownFloorLog10, Consumer<String> warnings, LoadProgress progress) {
     ArpaReader r = new ArpaReader(file, unknownFloorLog10, warnings, progress);
-    try (BufferedReader in = TextInput.open(file)) {
+    try (BufferedReader in = InputFiles.open(file)) {
       return r.parse(in);
     } catch (java.io.EOFException e) {
       throw InputException.at(file, r.lineNo + 1, "compressed data ends early (truncated gzip)", "a complete gzip file").withCause(e);

@@ -8,10 +8,10 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.zip.GZIPOutputStream;
+import steelyard.io.AtomicOutput;
 import steelyard.io.InputException;
 import steelyard.lm.BackoffModel;
 import steelyard.lm.ModelMetadata;
-import steelyard.lm.ModelOutput;
 
 /**
  * Writes a {@link BackoffModel} as an ARPA file (gzip when the name ends in {@code .gz}), atomically.
@@ -32,7 +32,7 @@ public final class ArpaWriter {
   public static void write(BackoffModel model, Path file) {
     checkTokens(model, file);
     boolean gzip = file.getFileName().toString().endsWith(".gz");
-    ModelOutput.writeBytes(file, os -> {
+    AtomicOutput.writeBytes(file, os -> {
       OutputStream target = gzip ? new GZIPOutputStream(os, 1 << 16) : os;
       Writer w = new OutputStreamWriter(target, StandardCharsets.UTF_8);
       write(model, w);
