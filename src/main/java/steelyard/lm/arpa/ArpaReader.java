@@ -88,7 +88,8 @@ public final class ArpaReader {
     for (String m : metadata) b.metadata(m);
     long total = 0;
     for (int k = 1; k <= order; k++) {
-      b.expectEntries(k, (int) Math.min(counts[k - 1], Integer.MAX_VALUE - 8));
+      // Presize from \data\, capped: a damaged count must not allocate gigabytes before the sections disagree.
+      b.expectEntries(k, (int) Math.min(counts[k - 1], 1 << 22));
       total += counts[k - 1];
     }
     if (progress != null) progress.start(total);
