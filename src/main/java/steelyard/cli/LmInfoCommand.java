@@ -80,12 +80,8 @@ public final class LmInfoCommand implements Callable<Integer> {
     return o;
   }
 
+  /** The normaliser's own one-line description, e.g. {@code nfkc fold-case}. */
   static String describe(NormalisationOptions n) {
-    StringBuilder sb = new StringBuilder("NFKC");
-    if (n.foldCase()) sb.append(", fold case");
-    if (n.stripPunctuation()) sb.append(", strip punctuation");
-    if (n.splitHyphens()) sb.append(", split hyphens");
-    if (n.ignoreWhitespace()) sb.append(", ignore whitespace");
-    return sb.toString();
+    return steelyard.text.Normaliser.create(new NormalisationOptions(n.foldCase(), n.stripPunctuation(), n.splitHyphens(), n.ignoreWhitespace(), null)).describe();
   }
 }

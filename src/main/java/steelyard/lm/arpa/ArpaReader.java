@@ -64,8 +64,8 @@ public final class ArpaReader {
     String line = in.readLine();
     if (line == null) return null;
     lineNo++;
-    if (line.indexOf('\0') >= 0 || line.indexOf('\uFFFD') >= 0) {
-      throw InputException.at(file, lineNo, "binary data (NUL or undecodable bytes)", "an ARPA text file");
+    if (line.indexOf('\0') >= 0) {
+      throw InputException.at(file, lineNo, "binary data (NUL character)", "an ARPA text file");
     }
     return line;
   }
