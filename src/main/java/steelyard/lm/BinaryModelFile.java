@@ -35,7 +35,7 @@ import steelyard.io.InputException;
  *   zero padding to a multiple of 4 bytes
  *   per order k = 1 … N: int length L, then L ints — the record array of order k exactly as described in
  *   {@link CompactModel} (unigrams 4 ints per token + sentinel; middle orders 4 ints per slot + sentinel;
- *   highest order 2 ints per slot)
+ *   highest order: the word ids of all slots, then the probability bits of all slots)
  * </pre>
  * Reading checks magic, version, length and checksum before it looks at the payload, then checks the
  * structure (orders, lengths, child ranges, word ids), so a damaged file is an {@link InputException} naming
@@ -171,11 +171,11 @@ public final class BinaryModelFile {
     for (int k = 0; k < order; k++) {
       int[] a = levels[k];
       boolean top = k == order - 1 && k > 0;
-      int stride = top ? 2 : 4;
+      int stride = top ? 2 : 4; // highest order: words of all slots, then probabilities
       int slots = top ? a.length / 2 : a.length / 4 - 1;
       if (a.length % stride != 0 || slots < 0) throw bad(file, "array of order " + (k + 1) + " has a bad length");
       for (int s = 0; s < slots; s++) {
-        int w = a[s * stride];
+        int w = top ? a[s] : a[s * 4];
         if (w < -1 || w >= v || (k == 0 && w != -1 && w != s)) throw bad(file, "bad word id in order " + (k + 1));
       }
       if (k < order - 1) {

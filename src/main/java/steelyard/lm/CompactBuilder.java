@@ -51,16 +51,23 @@ final class CompactBuilder {
       if (total * stride + 4 > Integer.MAX_VALUE - 8) throw new IllegalArgumentException("too many " + k + "-grams for the compact layout: " + n);
       parent[4 * parentSlots + 3] = (int) total;
       int[] a = new int[(int) total * stride + (top ? 0 : 4)];
-      for (int s = 0; s < total; s++) a[s * stride] = CompactModel.EMPTY;
+      int wordStride = top ? 1 : 4;
+      for (int s = 0; s < total; s++) a[s * wordStride] = CompactModel.EMPTY;
       int[] entryAt = robinHood(m, k, parent, parentSlot, (int) total);
       slotOf[k - 1] = new int[n];
       for (int slot = 0; slot < total; slot++) {
         int i = entryAt[slot];
         if (i < 0) continue;
         slotOf[k - 1][i] = slot;
-        a[slot * stride] = m.lastWord(k, i);
-        a[slot * stride + 1] = Float.floatToIntBits((float) m.log10Prob(k, i));
-        if (!top) a[slot * stride + 2] = Float.floatToIntBits((float) m.log10Backoff(k, i));
+        int p = Float.floatToIntBits((float) m.log10Prob(k, i));
+        if (top) {
+          a[slot] = m.lastWord(k, i);
+          a[(int) total + slot] = p;
+        } else {
+          a[slot * 4] = m.lastWord(k, i);
+          a[slot * 4 + 1] = p;
+          a[slot * 4 + 2] = Float.floatToIntBits((float) m.log10Backoff(k, i));
+        }
       }
       levels[k - 1] = a;
     }
@@ -136,7 +143,7 @@ final class CompactBuilder {
   private static boolean walkClosed(CompactModel c, int level, int slot, int[] prefix, int len) {
     // Iterates the trie depth first; for each entry of order ≥ 2 looks up its suffix from the root.
     int[] a = c.levels[level];
-    int stride = level == c.order - 1 && level > 0 ? 2 : 4;
+    int stride = level == c.order - 1 && level > 0 ? 1 : 4;
     int from;
     int to;
     if (level == 0) {
@@ -174,16 +181,16 @@ final class CompactBuilder {
   private static void addChildren(CompactModel c, BackoffModel.Builder b, int level, int slot, int[] prefix, int len) {
     int[] a = c.levels[level];
     boolean top = level == c.order - 1 && level > 0;
-    int stride = top ? 2 : 4;
+    int stride = top ? 1 : 4;
     int from = level == 0 ? 0 : c.levels[level - 1][4 * slot + 3];
     int to = level == 0 ? a.length / 4 - 1 : c.levels[level - 1][4 * slot + 7];
     for (int s = from; s < to; s++) {
       int w = a[s * stride];
       if (w == CompactModel.EMPTY) continue;
       prefix[len] = w;
-      float p = Float.intBitsToFloat(a[s * stride + 1]);
+      float p = Float.intBitsToFloat(top ? a[a.length / 2 + s] : a[s * 4 + 1]);
       if (!Float.isNaN(p)) {
-        double bow = top ? 0 : Float.intBitsToFloat(a[s * stride + 2]);
+        double bow = top ? 0 : Float.intBitsToFloat(a[s * 4 + 2]);
         b.add(Arrays.copyOf(prefix, len + 1), p, bow);
       }
       if (level < c.order - 1) addChildren(c, b, level + 1, s, prefix, len + 1);

@@ -14,7 +14,8 @@ import steelyard.text.Unit;
  *   <li>unigrams: 4 ints per token id (indexed directly by id, plus one sentinel):
  *       {@code [present ? id : −1, float bits log10 P, float bits log10 back-off, first child slot]};</li>
  *   <li>orders 2 … N−1: 4 ints per slot (plus one sentinel): {@code [word id or −1 if empty, P bits, back-off bits, first child slot]};</li>
- *   <li>order N: 2 ints per slot: {@code [word id or −1, P bits]}.</li>
+ *   <li>order N: the word ids of all slots (−1 = empty), then the P bits of all slots, so that probes — mostly
+ *       misses — read only the dense word half.</li>
  * </ul>
  * The children of a context slot c (the n-grams one order higher whose prefix is c) occupy the slots
  * {@code [first(c), first(c+1))} of the next order, laid out as a small open-addressing table keyed by word
@@ -55,6 +56,8 @@ public final class CompactModel implements LanguageModel {
   private final int unk;
   private final boolean unkListed;
   private final double unkLog10;
+  /** Slots of the highest order (its array holds the words, then the probabilities). */
+  private final int topSlots;
 
   CompactModel(int order, List<String> metadata, String[] tokens, int[][] levels, int[] ngramCounts,
       double unknownFloorLog10, boolean suffixClosed) {
@@ -76,6 +79,7 @@ public final class CompactModel implements LanguageModel {
     float pu = unk < 0 || levels[0][4 * unk] < 0 ? Float.NaN : Float.intBitsToFloat(levels[0][4 * unk + 1]);
     unkListed = !Float.isNaN(pu);
     unkLog10 = pu;
+    topSlots = order > 1 ? levels[order - 1].length / 2 : 0;
   }
 
   /** Builds the compact form of {@code model} (same token ids, same scores up to float rounding). */
@@ -151,7 +155,7 @@ public final class CompactModel implements LanguageModel {
       topSize = p[((c + 1) << 2) + 3] - topStart;
       if (topSize > 0) {
         topPos = home(w, topSize);
-        topFirst = levels[hi][(topStart + topPos) << (hi == order - 1 ? 1 : 2)];
+        topFirst = levels[hi][(topStart + topPos) << (hi == order - 1 ? 0 : 2)];
       }
     }
     double best = Double.NaN;
@@ -241,14 +245,14 @@ public final class CompactModel implements LanguageModel {
     int size = parent[((ctx + 1) << 2) + 3] - start;
     if (size == 0) return -1;
     int pos = home(w, size);
-    return probe(level, start, size, pos, levels[level][(start + pos) << (level == order - 1 ? 1 : 2)], w);
+    return probe(level, start, size, pos, levels[level][(start + pos) << (level == order - 1 ? 0 : 2)], w);
   }
 
   /** Robin Hood probe of a child table whose first candidate word {@code first} (at {@code pos}) is already loaded. */
   private int probe(int level, int start, int size, int pos, int first, int w) {
     if (size == 0) return -1;
     int[] a = levels[level];
-    int shift = level == order - 1 ? 1 : 2;
+    int shift = level == order - 1 ? 0 : 2;
     int x = first;
     for (int d = 0; d < size; d++) {
       if (x == w) return start + pos;
@@ -270,8 +274,8 @@ public final class CompactModel implements LanguageModel {
   }
 
   private float prob(int level, int slot) {
-    int shift = level == order - 1 && level > 0 ? 1 : 2;
-    return Float.intBitsToFloat(levels[level][(slot << shift) + 1]);
+    if (level == order - 1 && level > 0) return Float.intBitsToFloat(levels[level][topSlots + slot]);
+    return Float.intBitsToFloat(levels[level][(slot << 2) + 1]);
   }
 
   private float backoff(int level, int slot) {
