@@ -14,14 +14,14 @@ import picocli.CommandLine.Option;
 import steelyard.io.AtomicOutput;
 import steelyard.io.InputException;
 import steelyard.io.InputFiles;
+import steelyard.lm.BackoffModel;
+import steelyard.lm.CompactModel;
 import steelyard.lm.LanguageModel;
+import steelyard.lm.LoadProgress;
+import steelyard.lm.ModelFiles;
 import steelyard.text.NormalisationOptions;
 import steelyard.text.Normaliser;
 import steelyard.text.Unit;
-import steelyard.lm.BackoffModel;
-import steelyard.lm.CompactModel;
-import steelyard.lm.LoadProgress;
-import steelyard.lm.ModelFiles;
 
 /** Options of the commands that read one model: {@code --lm}, {@code --unk-log10}, {@code --progress}. */
 public final class LmModelInput {
@@ -81,8 +81,6 @@ public final class LmModelInput {
       long line = 0;
       String raw;
       while ((raw = in.readLine()) != null) sink.accept(++line, tokenizer.apply(raw));
-    } catch (java.nio.charset.CharacterCodingException e) {
-      throw InputException.inFile(text, "not UTF-8 text", "a UTF-8 text file, one sentence per line").withCause(e);
     } catch (IOException e) {
       throw InputException.inFile(text, "cannot read (" + e.getMessage() + ")", "a readable text file").withCause(e);
     }
