@@ -13,7 +13,6 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
-import org.junit.jupiter.api.Disabled;
 import org.junit.jupiter.api.Nested;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
@@ -94,7 +93,6 @@ class LmTrainCommandTest {
   }
 
   @Nested
-  @Disabled("needs the normaliser, corpus reader and model files, which are not built yet")
   class Training {
     @Test
     void writesAModelThatScoresLikeTheTrainerAndReportsInJson() throws Exception {

@@ -8,7 +8,6 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.SplittableRandom;
 import java.util.stream.Stream;
-import org.junit.jupiter.api.Disabled;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.Arguments;
@@ -22,7 +21,6 @@ import steelyard.lm.ModelFiles;
  * still sums to 1 within 1e-5 (ARPA keeps about seven significant digits of each log10 value), and every
  * probability agrees with the in-memory model within 1e-5 in log10.
  */
-@Disabled("needs the ARPA writer and reader of ModelFiles, which are not built yet")
 class ArpaRoundTripNormalisationTest {
   @TempDir Path dir;
 
