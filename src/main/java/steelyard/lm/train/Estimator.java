@@ -276,6 +276,7 @@ final class Estimator {
    */
   void addTo(BackoffModel.Builder builder) {
     counts.releaseCountsAndSuffixes();
+    for (int k = 1; k <= order; k++) builder.expectEntries(k, (int) listed[k - 1]);
     int[][] childStart = new int[order + 1][];
     for (int k = 1; k < order; k++) childStart[k + 1] = counts.childStarts(k);
     int[] ids = new int[order];
