@@ -272,11 +272,13 @@ final class Estimator {
    * Adds every listed n-gram to {@code builder}, whose token ids must equal the counting ids. N-grams go in
    * depth-first trie order (each unigram, then its listed extensions, …): with the trie numbering of
    * {@link NgramCounts#freeze()} this reads every array front to back, and the builder's prefix look-ups of
-   * consecutive n-grams hit the same, already cached, table slots.
+   * consecutive n-grams hit the same, already cached, table slots. Call once: it converts the working
+   * arrays to log10 in place and releases the counts.
    */
   void addTo(BackoffModel.Builder builder) {
     counts.releaseCountsAndSuffixes();
     for (int k = 1; k <= order; k++) builder.expectEntries(k, (int) listed[k - 1]);
+    toLog10();
     int[][] childStart = new int[order + 1][];
     for (int k = 1; k < order; k++) childStart[k + 1] = counts.childStarts(k);
     int[] ids = new int[order];
@@ -311,10 +313,23 @@ final class Estimator {
     }
   }
 
+  /** Turns the probabilities and back-off weights into log10 in place (independent per entry: in parallel). */
+  private void toLog10() {
+    for (int k = 1; k <= order; k++) {
+      double[] p = prob[k];
+      java.util.Arrays.parallelSetAll(p, i -> Math.log10(p[i]));
+      if (k < order && bow[k] != null) {
+        double[] b = bow[k];
+        java.util.Arrays.parallelSetAll(b, i -> Math.log10(b[i]));
+      }
+    }
+  }
+
+  /** Adds entry e of order k; after {@link #toLog10()} the arrays hold log10 values. */
   private void add(BackoffModel.Builder builder, int k, int e, int[] ids, int[] buffer) {
     System.arraycopy(ids, 0, buffer, 0, k);
-    double lp = (k == 1 && e == bosEntry) ? START_LOG10 : Math.log10(prob[k][e]);
-    double lb = k < order ? Math.log10(bow[k][e]) : 0;
+    double lp = (k == 1 && e == bosEntry) ? START_LOG10 : prob[k][e];
+    double lb = k < order ? bow[k][e] : 0;
     builder.add(buffer, lp, lb);
   }
 
