@@ -121,6 +121,31 @@ class LmTrainCommandTest {
     }
 
     @Test
+    void theSameCorpusGivesByteIdenticalModelFiles() throws Exception {
+      Path a = dir.resolve("a.arpa"), b = dir.resolve("b.arpa");
+      String c = corpus().toString();
+      assertThat(run("lm", "train", "--text", c, "--order", "4", "--out", a.toString()).exit()).isEqualTo(Main.OK);
+      assertThat(run("lm", "train", "--text", c, "--order", "4", "--out", b.toString()).exit()).isEqualTo(Main.OK);
+      assertThat(Files.readAllBytes(a)).isEqualTo(Files.readAllBytes(b));
+    }
+
+    @Test
+    void vocabularyLimitsAndCutoffsAreAppliedAndRecorded() throws Exception {
+      Path model = dir.resolve("v.arpa");
+      Run r = run("lm", "train", "--text", corpus().toString(), "--order", "3", "--vocab-min-count", "2",
+          "--cutoffs", "0,1", "--smoothing", "abs", "--out", model.toString(), "--json", "-");
+      assertThat(r.exit()).as(r.err()).isEqualTo(Main.OK);
+      BackoffModel lm = ModelFiles.loadExact(model);
+      assertThat(lm.wordId("apples")).as("seen once").isEqualTo(lm.unknownId());
+      assertThat(lm.wordId("crate")).as("seen twice").isNotEqualTo(lm.unknownId());
+      assertThat(lm.metadata()).contains("steelyard.vocab_min_count=2", "steelyard.cutoffs=0,1", "steelyard.smoothing=abs");
+      JsonNode j = new ObjectMapper().readTree(r.out());
+      assertThat(j.get("unk_tokens").asLong()).isEqualTo(3); // apples, Two, crates
+      JsonNode trigrams = j.get("ngrams").get(2);
+      assertThat(trigrams.get("listed").asLong()).isLessThan(trigrams.get("distinct").asLong());
+    }
+
+    @Test
     void characterModelsUseTheSpaceToken() throws Exception {
       Path model = dir.resolve("c.arpa.gz");
       Run r = run("lm", "train", "--text", corpus().toString(), "--order", "4", "--unit", "char",
