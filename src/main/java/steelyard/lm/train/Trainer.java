@@ -23,6 +23,10 @@ import steelyard.text.Vocabulary;
  * listed with the interpolation floor γ(ε)/|V| (modified Kneser-Ney, absolute discounting, Witten-Bell).
  * The token {@code <unk>} in the text counts as {@code <unk>}; {@code <s>} and {@code </s>} in the text are
  * errors. Lines that normalise to nothing are not sentences (counted in the report).
+ *
+ * <p>Threads: the calling thread reads the source and interns tokens; the smoothing methods with a back-off
+ * form count on {@link ShardedCounter}'s two workers, add-k counts on the calling thread (it keeps the
+ * look-up tables for querying). Results never depend on the number of cores.
  */
 public final class Trainer {
   private final TrainingOptions options;
