@@ -15,6 +15,7 @@ import java.util.concurrent.Callable;
 import me.tongfei.progressbar.ConsoleProgressBarConsumer;
 import me.tongfei.progressbar.ProgressBar;
 import me.tongfei.progressbar.ProgressBarBuilder;
+import me.tongfei.progressbar.ProgressBarStyle;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -121,7 +122,8 @@ public final class LmTrainCommand implements Callable<Integer> {
   private ProgressBar progressBar() {
     if (!progress && System.console() == null) return null;
     return new ProgressBarBuilder().setTaskName("counting").setInitialMax(-1).setUnit(" sentences", 1)
-        .setConsumer(new ConsoleProgressBarConsumer(System.err)).setUpdateIntervalMillis(500).build();
+        .setStyle(ProgressBarStyle.ASCII).setConsumer(new ConsoleProgressBarConsumer(System.err))
+        .setUpdateIntervalMillis(500).build();
   }
 
   private String humanReport(TrainingReport r, double saveSeconds) {
