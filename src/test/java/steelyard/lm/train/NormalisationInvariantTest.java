@@ -63,5 +63,28 @@ class NormalisationInvariantTest {
     if (lm instanceof BackoffModel b) {
       assertThat(b.hasUnknownUnigram()).as("<unk> is listed, seed %d", seed).isTrue();
     }
+    if (variant.equals("cutoffs")) listedProbabilitiesAreThoseOfTheUncutModel((BackoffModel) lm, corpus, smoothing, order, seed);
+  }
+
+  /**
+   * With the sums checked above, this pins the recomputed back-off weights down completely: a history's
+   * weight is the only value that makes its context sum to 1 once its listed probabilities are fixed.
+   */
+  private static void listedProbabilitiesAreThoseOfTheUncutModel(
+      BackoffModel cut, List<List<String>> corpus, Smoothing smoothing, int order, long seed) {
+    BackoffModel full = new Trainer(TrainingOptions.of(order, smoothing)).train(SentenceSource.of(corpus)).backoffModel();
+    int dropped = 0;
+    for (int k = 1; k <= order; k++) {
+      int[] ids = new int[k];
+      for (int i = 0; i < cut.entryCount(k); i++) {
+        cut.ngram(k, i, ids);
+        if (ids[k - 1] == cut.sentenceStartId()) continue;
+        int[] context = java.util.Arrays.copyOf(ids, k - 1);
+        assertThat(cut.log10Prob(k, i)).as("listed n-gram %s, seed %d", java.util.Arrays.toString(ids), seed)
+            .isCloseTo(full.log10Prob(context, ids[k - 1]), within(1e-12));
+      }
+      dropped += full.ngramCount(k) - cut.ngramCount(k);
+    }
+    assertThat(dropped).as("the cut-offs dropped n-grams, seed %d", seed).isPositive();
   }
 }
