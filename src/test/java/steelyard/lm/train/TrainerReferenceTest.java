@@ -65,4 +65,37 @@ class TrainerReferenceTest {
     }
     assertThat(compared).isGreaterThan(50);
   }
+
+  static Stream<Arguments> vocabularyCases() {
+    List<Arguments> out = new ArrayList<>();
+    for (Smoothing s : Smoothing.values()) for (long seed : new long[] {5, 6}) out.add(Arguments.of(s, 3, seed));
+    return out.stream();
+  }
+
+  @ParameterizedTest(name = "[{index}] {arguments}")
+  @MethodSource("vocabularyCases")
+  void withAMinimumCountTheModelIsTheReferenceOnTheCorpusWithRareWordsReplaced(Smoothing smoothing, int order, long seed) {
+    SplittableRandom random = new SplittableRandom(seed);
+    List<List<String>> corpus = TrainTestSupport.randomCorpus(random, 80, 60, 9);
+    java.util.Map<String, Integer> freq = new java.util.HashMap<>();
+    for (List<String> s : corpus) for (String w : s) freq.merge(w, 1, Integer::sum);
+    List<List<String>> mapped = new ArrayList<>();
+    for (List<String> s : corpus) {
+      List<String> m = new ArrayList<>();
+      for (String w : s) m.add(freq.get(w) >= 3 ? w : "<unk>");
+      mapped.add(m);
+    }
+    LanguageModel lm = new Trainer(TrainingOptions.of(order, smoothing).withAddK(0.5).withVocabulary(3, 0))
+        .train(SentenceSource.of(corpus)).model();
+    ReferenceModel ref = new ReferenceModel(mapped, order, smoothing, 0.5);
+    List<String> tokens = TrainTestSupport.predicted(lm);
+    assertThat(new TreeSet<>(tokens)).as("vocabulary, seed %d", seed).isEqualTo(ref.vocabulary);
+    for (List<String> context : TrainTestSupport.randomContexts(random, tokens, 30, order)) {
+      for (String w : tokens) {
+        assertThat(TrainTestSupport.prob(lm, context, w)).as("P(%s | %s), seed %d", w, context, seed)
+            .isCloseTo(ref.prob(context.stream().map(c -> ref.vocabulary.contains(c) || c.equals("<s>") ? c : "<unk>")
+                .toList(), w), within(1e-9));
+      }
+    }
+  }
 }
