@@ -85,6 +85,7 @@ class TrainerReferenceTest {
       for (String w : s) m.add(freq.get(w) >= 3 ? w : "<unk>");
       mapped.add(m);
     }
+    assertThat(mapped.stream().flatMap(List::stream)).as("some words are rare, seed %d", seed).contains("<unk>");
     LanguageModel lm = new Trainer(TrainingOptions.of(order, smoothing).withAddK(0.5).withVocabulary(3, 0))
         .train(SentenceSource.of(corpus)).model();
     ReferenceModel ref = new ReferenceModel(mapped, order, smoothing, 0.5);
