@@ -1,0 +1,141 @@
+package steelyard.rescore;
+
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.JsonNodeFactory;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import it.unimi.dsi.fastutil.longs.LongArrayList;
+import java.util.ArrayList;
+import java.util.List;
+import steelyard.eval.EditCounts;
+
+/**
+ * Accumulates a rescoring run in input order (so the totals do not depend on the thread count) and renders
+ * the JSON summary. With references, the error keys are those of the {@code score} command plus
+ * {@code first_error_rate}, {@code oracle_error_rate}, {@code lattice_oracle_error_rate} (network methods)
+ * and {@code changed}.
+ *
+ * <p>Per scored utterance it keeps two longs (errors, reference tokens of the choice) for the bootstrap:
+ * 16 bytes per utterance in {@link LongArrayList}s.
+ */
+public final class RescoreSummary {
+  /** Printed with every result: an automatic pick is a statistical choice. */
+  public static final String NOTICE = "An automatic pick is not a verified transcript: transcripts with legal, "
+      + "medical or safety weight need review by a person.";
+
+  private long utterances;
+  private long hypotheses;
+  private long changed;
+  private long newTranscripts;
+  private long capped;
+  private long scored;
+  private EditCounts chosen = EditCounts.ZERO;
+  private EditCounts first = EditCounts.ZERO;
+  private EditCounts oracle = EditCounts.ZERO;
+  private long latticeOracleErrors;
+  private boolean latticeOracle;
+  private long sentenceErrors;
+  private final LongArrayList errorsPerUtterance = new LongArrayList();
+  private final LongArrayList tokensPerUtterance = new LongArrayList();
+  private final List<String> missingHypotheses = new ArrayList<>();
+  private final List<String> missingReferences = new ArrayList<>();
+
+  /** Adds one rescored utterance; {@code errors} is null when it has no reference (or none were given). */
+  public void add(UtteranceResult r, UtteranceErrors errors) {
+    utterances++;
+    hypotheses += r.scores().size();
+    if (r.changed()) changed++;
+    if (r.isNewTranscript()) newTranscripts++;
+    if (r.capped()) capped++;
+    if (errors != null) {
+      addScored(errors.chosen(), errors.first(), errors.oracle());
+      if (errors.latticeOracle() >= 0) {
+        latticeOracle = true;
+        latticeOracleErrors += errors.latticeOracle();
+      }
+    }
+  }
+
+  /** Records a hypotheses utterance that has no reference. */
+  public void missingReference(String uttId) {
+    missingReferences.add(uttId);
+  }
+
+  /** Records a reference with no hypotheses: every reference token deleted, in every rate. */
+  public void missingHypotheses(String uttId, EditCounts allDeleted) {
+    missingHypotheses.add(uttId);
+    addScored(allDeleted, allDeleted, allDeleted);
+    latticeOracleErrors += allDeleted.errors();
+  }
+
+  private void addScored(EditCounts c, EditCounts f, EditCounts o) {
+    scored++;
+    chosen = chosen.plus(c);
+    first = first.plus(f);
+    oracle = oracle.plus(o);
+    if (c.errors() > 0) sentenceErrors++;
+    errorsPerUtterance.add(c.errors());
+    tokensPerUtterance.add(c.referenceTokens());
+  }
+
+  public long utterances() { return utterances; }
+  public long changed() { return changed; }
+  public long cappedUtterances() { return capped; }
+  public EditCounts chosen() { return chosen; }
+  public EditCounts first() { return first; }
+  public EditCounts oracle() { return oracle; }
+  public long scored() { return scored; }
+  /** Per scored utterance (input order, then missing hypotheses): errors of the choice. */
+  public long[] errorsPerUtterance() { return errorsPerUtterance.toLongArray(); }
+  /** Per scored utterance: reference tokens. */
+  public long[] referenceTokensPerUtterance() { return tokensPerUtterance.toLongArray(); }
+
+  /**
+   * The JSON summary.
+   *
+   * @param withReferences whether references were given (adds the error keys)
+   * @param ci95           the bootstrap interval {low, high} of the chosen error rate, or null when not computed
+   */
+  public ObjectNode toJson(String method, String unit, long seed, boolean withReferences, double[] ci95) {
+    JsonNodeFactory f = JsonNodeFactory.instance;
+    ObjectNode o = f.objectNode();
+    o.put("notice", NOTICE);
+    o.put("method", method);
+    o.put("unit", unit);
+    o.put("seed", seed);
+    o.put("rescored_utterances", utterances);
+    o.put("hypotheses", hypotheses);
+    o.put("changed", changed);
+    o.put("new_transcripts", newTranscripts);
+    o.put("capped_utterances", capped);
+    if (!withReferences) return o;
+    o.put("utterances", scored);
+    o.put("reference_tokens", chosen.referenceTokens());
+    o.put("correct", chosen.correct());
+    o.put("substitutions", chosen.substitutions());
+    o.put("deletions", chosen.deletions());
+    o.put("insertions", chosen.insertions());
+    rate(o, "error_rate", chosen.errors(), chosen.referenceTokens());
+    rate(o, "sentence_error_rate", sentenceErrors, scored);
+    if (ci95 == null) {
+      o.putNull("ci95_low");
+      o.putNull("ci95_high");
+    } else {
+      o.put("ci95_low", ci95[0]);
+      o.put("ci95_high", ci95[1]);
+    }
+    o.put("missing_hypotheses", missingHypotheses.size());
+    o.put("missing_references", missingReferences.size());
+    rate(o, "first_error_rate", first.errors(), first.referenceTokens());
+    rate(o, "oracle_error_rate", oracle.errors(), oracle.referenceTokens());
+    if (latticeOracle) rate(o, "lattice_oracle_error_rate", latticeOracleErrors, chosen.referenceTokens());
+    ArrayNode mh = o.putArray("missing_hypothesis_ids");
+    missingHypotheses.forEach(mh::add);
+    ArrayNode mr = o.putArray("missing_reference_ids");
+    missingReferences.forEach(mr::add);
+    return o;
+  }
+
+  private static void rate(ObjectNode o, String key, long errors, long n) {
+    if (n == 0) o.putNull(key); else o.put(key, (double) errors / n);
+  }
+}
