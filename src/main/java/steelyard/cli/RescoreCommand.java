@@ -93,7 +93,7 @@ public final class RescoreCommand implements Callable<Integer> {
     Path picks = out != null ? out : (json == null ? Path.of("-") : null);
     if (picks != null && json != null && picks.toString().equals("-") && json.toString().equals("-"))
       throw InputException.option("--json", "picks and the JSON summary cannot both go to stdout", "--out FILE or --json FILE");
-    RescoreSupport.checkPaths(List.of(input.hyps, lm, refs, weightsFile, normalisation.rules),
+    RescoreSupport.checkPaths(java.util.Arrays.asList(input.hyps, lm, refs, weightsFile, normalisation.rules),
         new Path[] {picks, breakdown, json, saveWeights}, new String[] {"--out", "--breakdown", "--json", "--save-weights"});
 
     List<FeatureSpec> specs = input.featureSpecs();

@@ -13,7 +13,7 @@ import steelyard.lm.LmState;
 import steelyard.text.TokenSequence;
 
 /**
- * Computes the unweighted terms of every hypothesis ({@link UtteranceScores}): features as imported, the
+ * Computes the unweighted terms of every hypothesis ({@link ScoredUtterance}): features as imported, the
  * model's ln P(sentence) with {@code <s>}/{@code </s>} (every unknown token scored as {@code <unk>}), the
  * number of out-of-vocabulary tokens (in the model's tokenisation) and the number of tokens (in the scoring
  * unit). Thread-safe: the model is shared, LM states are per call.
@@ -44,7 +44,7 @@ public final class HypothesisScorer {
     return lm != null;
   }
 
-  public UtteranceScores score(UtteranceHypotheses u) {
+  public ScoredUtterance score(UtteranceHypotheses u) {
     List<Hypothesis> hyps = u.hypotheses();
     int[] row = keptRows(u);
     int n = row.length;
@@ -74,7 +74,7 @@ public final class HypothesisScorer {
     for (int s = 0; s < systems.size(); s++) systemIds.put(systems.get(s), s);
     int[] sys = new int[n];
     for (int i = 0; i < n; i++) sys[i] = systemIds.get(hyps.get(row[i]).system());
-    return new UtteranceScores(u, row, featureCount, feats, lnP, oov, len, tieOrder(hyps, row), sys, systems, toks);
+    return new ScoredUtterance(u, row, featureCount, feats, lnP, oov, len, tieOrder(hyps, row), sys, systems, toks);
   }
 
   private double sentence(List<String> tokens, LmState s, int[] oov, int i) {

@@ -37,7 +37,7 @@ public final class LogLinear {
   }
 
   /** The weighted contribution of term {@code t} (features first, then LM, OOV, length) to hypothesis {@code i}. */
-  public double term(UtteranceScores s, int i, int t) {
+  public double term(ScoredUtterance s, int i, int t) {
     int f = featureWeights.length;
     if (t < f) return featureWeights[t] * s.feature(i, t);
     switch (t - f) {
@@ -48,7 +48,7 @@ public final class LogLinear {
     }
   }
 
-  public double total(UtteranceScores s, int i) {
+  public double total(ScoredUtterance s, int i) {
     double t = 0;
     for (int f = 0; f < featureWeights.length; f++) t += featureWeights[f] * s.feature(i, f);
     t += lmWeight * s.lmLogProb(i);
@@ -58,7 +58,7 @@ public final class LogLinear {
   }
 
   /** Totals of every hypothesis into {@code out} (length ≥ size), which is returned. */
-  public double[] totals(UtteranceScores s, double[] out) {
+  public double[] totals(ScoredUtterance s, double[] out) {
     for (int i = 0, n = s.size(); i < n; i++) out[i] = total(s, i);
     return out;
   }
@@ -67,7 +67,7 @@ public final class LogLinear {
    * The hypothesis with the highest total; ties go to the smaller rank, then the system name that sorts
    * first, then the earlier row of the file.
    */
-  public static int best(UtteranceScores s, double[] totals) {
+  public static int best(ScoredUtterance s, double[] totals) {
     int best = 0;
     for (int i = 1, n = s.size(); i < n; i++) {
       if (totals[i] > totals[best] || (totals[i] == totals[best] && s.tieOrder(i) < s.tieOrder(best))) best = i;

@@ -53,7 +53,7 @@ public final class NbestRescorer {
   }
 
   /** Chooses for an already scored utterance with this rescorer's weights and method. */
-  public UtteranceResult choose(UtteranceScores s) {
+  public UtteranceResult choose(ScoredUtterance s) {
     int n = s.size();
     double[] totals = weighting.totals(s, new double[n]);
     double[] post = Posteriors.compute(s, totals, weights.posteriorScale(), systemWeights(s), new double[n]);
@@ -76,7 +76,7 @@ public final class NbestRescorer {
   }
 
   /** The confusion-network choice over the kept hypotheses with their (system-mixed) posteriors. */
-  private LatticeChoice network(UtteranceScores s, double[] post) {
+  private LatticeChoice network(ScoredUtterance s, double[] post) {
     List<List<String>> toks = tokenLists(s);
     LatticeSettings settings = weights.latticeSettings();
     return method == RescoreMethod.CONSENSUS
@@ -85,26 +85,26 @@ public final class NbestRescorer {
   }
 
   /** The scoring-unit token lists of the kept hypotheses, as the network methods take them. */
-  public static List<List<String>> tokenLists(UtteranceScores s) {
+  public static List<List<String>> tokenLists(ScoredUtterance s) {
     List<List<String>> toks = new ArrayList<>(s.size());
     for (int i = 0; i < s.size(); i++) toks.add(s.tokens(i).tokens());
     return toks;
   }
 
-  private UtteranceResult result(UtteranceScores s, double[] totals, double[] post, int chosen, List<String> tokens,
+  private UtteranceResult result(ScoredUtterance s, double[] totals, double[] post, int chosen, List<String> tokens,
       MbrChoice mbr, LatticeChoice lattice) {
     return new UtteranceResult(s, weighting, method, totals, post, chosen, tokens, mbr, lattice);
   }
 
   /** Each present system's weight, aligned with {@code s.systems()}. */
-  public double[] systemWeights(UtteranceScores s) {
+  public double[] systemWeights(ScoredUtterance s) {
     List<String> names = s.systems();
     double[] w = new double[names.size()];
     for (int k = 0; k < w.length; k++) w[k] = weights.systemWeight(names.get(k));
     return w;
   }
 
-  private static int[] tieOrders(UtteranceScores s) {
+  private static int[] tieOrders(ScoredUtterance s) {
     int[] t = new int[s.size()];
     for (int i = 0; i < t.length; i++) t[i] = s.tieOrder(i);
     return t;

@@ -71,7 +71,7 @@ public final class PicksWriter {
 
   /** One row per kept hypothesis of {@code r}, in file order. */
   public void breakdown(Writer out, UtteranceResult r) throws IOException {
-    UtteranceScores s = r.scores();
+    ScoredUtterance s = r.scores();
     List<String> row = new ArrayList<>(10 + featureNames.size() + 6);
     for (int i = 0; i < s.size(); i++) {
       row.clear();
@@ -89,7 +89,7 @@ public final class PicksWriter {
   }
 
   private void terms(List<String> row, UtteranceResult r, int i) {
-    UtteranceScores s = r.scores();
+    ScoredUtterance s = r.scores();
     LogLinear w = r.weighting();
     int f = featureNames.size();
     for (int t = 0; t < f + 3; t++) row.add(Csv.number(w.term(s, i, t)));

@@ -26,7 +26,7 @@ public final class Posteriors {
    * @param scale         α &gt; 0
    * @param systemWeights weight of each of {@code s.systems()} (any positive scale; normalised here)
    */
-  public static double[] compute(UtteranceScores s, double[] totals, double scale, double[] systemWeights, double[] out) {
+  public static double[] compute(ScoredUtterance s, double[] totals, double scale, double[] systemWeights, double[] out) {
     int n = s.size();
     int systems = s.systems().size();
     double[] max = new double[systems];

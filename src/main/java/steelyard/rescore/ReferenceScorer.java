@@ -27,7 +27,7 @@ public final class ReferenceScorer {
   }
 
   public UtteranceErrors score(UtteranceResult r, String referenceText) {
-    UtteranceScores s = r.scores();
+    ScoredUtterance s = r.scores();
     TokenSequence ref = tokens.tokenize(referenceText);
     int[] refIds = s.idsOf(ref.tokens());
     int[][] ids = s.tokenIds();

@@ -6,7 +6,7 @@ import steelyard.lattice.LatticeChoice;
 
 /**
  * The choice for one utterance with everything needed to explain it: the unweighted terms
- * ({@link UtteranceScores}), the weighting ({@link LogLinear}), every hypothesis' total and posterior, and
+ * ({@link ScoredUtterance}), the weighting ({@link LogLinear}), every hypothesis' total and posterior, and
  * what the method chose. Each term's weighted contribution is {@code weighting().term(scores(), i, t)}, so
  * nothing is recomputed to explain a choice.
  *
@@ -18,7 +18,7 @@ import steelyard.lattice.LatticeChoice;
  * @param lattice   the network path for {@link RescoreMethod#CONSENSUS} and {@link RescoreMethod#LATTICE}, else null
  */
 public record UtteranceResult(
-    UtteranceScores scores,
+    ScoredUtterance scores,
     LogLinear weighting,
     RescoreMethod method,
     double[] totals,

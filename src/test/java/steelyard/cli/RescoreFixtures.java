@@ -71,8 +71,9 @@ final class RescoreFixtures {
   private static final String[] WORDS = {"ten", "crates", "of", "pears", "bay", "nine", "load", "the", "leeks", "cold", "store", "pallet"};
 
   /**
-   * A seeded invented set: systems a and b, up to 6 hypotheses each, acoustic scores falling with rank and a
-   * 0–1 confidence; references are the sentences the hypotheses were garbled from.
+   * A seeded invented set: systems a and b, up to 6 hypotheses each, acoustic scores falling with rank (b's
+   * 1000 lower) and a 0–1 confidence; references are the sentences the hypotheses were garbled from; one
+   * utterance in 17 has no reference and one reference has no hypotheses.
    */
   static void writeRandomSet(Path hyps, Path refs, long seed, int utterances) throws IOException {
     SplittableRandom rnd = new SplittableRandom(seed);
@@ -86,7 +87,8 @@ final class RescoreFixtures {
       if (u % 17 != 5) r.append(id).append(',').append(String.join(" ", ref)).append('\n');
       for (String sys : new String[] {"a", "b"}) {
         int n = 1 + rnd.nextInt(6);
-        double ac = -10 * len;
+        // system b's scores live on another scale (−1000): rank 1 of a stays the best total overall
+        double ac = -10 * len - ("b".equals(sys) ? 1000 : 0);
         for (int rank = 1; rank <= n; rank++) {
           ac -= rnd.nextInt(3) == 0 ? 0 : rnd.nextDouble() * 5;
           List<String> t = new ArrayList<>(ref);

@@ -11,11 +11,11 @@ import org.junit.jupiter.api.Test;
 class MbrChooserTest {
   private final MbrChooser mbr = new MbrChooser(Fixtures::referenceDistance, 100);
 
-  private static UtteranceScores scores(Object[]... rows) {
+  private static ScoredUtterance scores(Object[]... rows) {
     return new HypothesisScorer(null, Fixtures.WHITESPACE, Fixtures.WHITESPACE, 1, 0).score(utterance("u", rows));
   }
 
-  private static int[] ties(UtteranceScores s) {
+  private static int[] ties(ScoredUtterance s) {
     int[] t = new int[s.size()];
     for (int i = 0; i < t.length; i++) t[i] = s.tieOrder(i);
     return t;
@@ -23,7 +23,7 @@ class MbrChooserTest {
 
   @Test
   void identicalHypothesesGiveThatHypothesis() {
-    UtteranceScores s = scores(row("a", 1, "six pallets of leeks", 0), row("b", 1, "six pallets of leeks", 0),
+    ScoredUtterance s = scores(row("a", 1, "six pallets of leeks", 0), row("b", 1, "six pallets of leeks", 0),
         row("c", 1, "six pallets of leeks", 0));
     MbrChoice c = mbr.choose(s.tokenIds(), new double[] {0.2, 0.5, 0.3}, ties(s));
     assertThat(s.hypothesis(c.chosen()).text()).isEqualTo("six pallets of leeks");
@@ -42,7 +42,7 @@ class MbrChooserTest {
    */
   @Test
   void differsFromTheTopPosteriorWhenTheTopIsAnOutlier() {
-    UtteranceScores s = scores(row("", 1, "bay nine shut", 0), row("", 2, "load bay nine", 0), row("", 3, "load bay five", 0));
+    ScoredUtterance s = scores(row("", 1, "bay nine shut", 0), row("", 2, "load bay nine", 0), row("", 3, "load bay five", 0));
     MbrChoice c = mbr.choose(s.tokenIds(), new double[] {0.40, 0.32, 0.28}, ties(s));
     assertThat(c.chosen()).isEqualTo(1);
     assertThat(c.expectedErrors()).isCloseTo(1.08, within(1e-12));
@@ -54,7 +54,7 @@ class MbrChooserTest {
    */
   @Test
   void identicalTextsMergeTheirMassFirst() {
-    UtteranceScores s = scores(row("x", 1, "crate ten", 0), row("x", 2, "great hen", 0), row("y", 1, "great hen", 0));
+    ScoredUtterance s = scores(row("x", 1, "crate ten", 0), row("x", 2, "great hen", 0), row("y", 1, "great hen", 0));
     MbrChoice c = mbr.choose(s.tokenIds(), new double[] {0.4, 0.3, 0.3}, ties(s));
     assertThat(s.hypothesis(c.chosen()).text()).isEqualTo("great hen");
     assertThat(c.chosen()).as("equal mass: the earlier tie order (rank 1 of system y) stands for the text").isEqualTo(2);
@@ -63,7 +63,7 @@ class MbrChooserTest {
 
   @Test
   void saysWhenTheCapApplied() {
-    UtteranceScores s = scores(row("", 1, "a", 0), row("", 2, "b", 0), row("", 3, "c", 0));
+    ScoredUtterance s = scores(row("", 1, "a", 0), row("", 2, "b", 0), row("", 3, "c", 0));
     MbrChoice c = new MbrChooser(Fixtures::referenceDistance, 2).choose(s.tokenIds(), new double[] {0.5, 0.3, 0.2}, ties(s));
     assertThat(c.capped()).isTrue();
     assertThat(c.distinctTexts()).isEqualTo(3);
@@ -74,7 +74,7 @@ class MbrChooserTest {
 
   @Test
   void equalExpectedErrorsGoToTheRecognisersOrder() {
-    UtteranceScores s = scores(row("", 2, "b", 0), row("", 1, "a", 0));
+    ScoredUtterance s = scores(row("", 2, "b", 0), row("", 1, "a", 0));
     MbrChoice c = mbr.choose(s.tokenIds(), new double[] {0.5, 0.5}, ties(s));
     assertThat(s.hypothesis(c.chosen()).text()).isEqualTo("a");
   }

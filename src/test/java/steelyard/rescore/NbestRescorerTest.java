@@ -91,7 +91,7 @@ class NbestRescorerTest {
       assertThat(r.chosenHypothesis().text()).isEqualTo("ten crates");
       assertThat(r.changed()).isTrue();
       LogLinear w = r.weighting();
-      UtteranceScores s = r.scores();
+      ScoredUtterance s = r.scores();
       assertThat(s.oovCount(2)).isEqualTo(1);
       assertThat(s.tokenCount(2)).isEqualTo(3);
       assertThat(w.term(s, 2, 0)).isCloseTo(-10.2, within(1e-12));
@@ -135,7 +135,7 @@ class NbestRescorerTest {
     UtteranceHypotheses u = utterance("u",
         row("a", 3, "a3", 9.0), row("a", 1, "a1", 0.0), row("b", 2, "b2", 5.0), row("a", 2, "a2", 1.0), row("b", 1, "b1", 0.0));
     HypothesisScorer scorer = new HypothesisScorer(null, Fixtures.WHITESPACE, Fixtures.WHITESPACE, 1, 2);
-    UtteranceScores s = scorer.score(u);
+    ScoredUtterance s = scorer.score(u);
     List<String> kept = new ArrayList<>();
     for (int i = 0; i < s.size(); i++) kept.add(s.hypothesis(i).text());
     assertThat(kept).containsExactly("a1", "b2", "a2", "b1");
@@ -149,7 +149,7 @@ class NbestRescorerTest {
     f.put("lm", 2.0);
     RescoreWeights w = new RescoreWeights(f, 0, 0, -0.1, 1, Map.of(), 100, 0, 0, 64, 200);
     NbestRescorer r = Fixtures.rescorer(w, RescoreMethod.NBEST, null, List.of("acoustic", "lm"));
-    UtteranceScores s = new HypothesisScorer(null, Fixtures.WHITESPACE, Fixtures.WHITESPACE, 2, 0).score(u);
+    ScoredUtterance s = new HypothesisScorer(null, Fixtures.WHITESPACE, Fixtures.WHITESPACE, 2, 0).score(u);
     assertThat(r.choose(s).totals()).containsExactly(r.rescore(u).totals());
     // by hand: h1 = -1 + 2·(-3) - 0.1·2 = -7.2; h2 = -1.5 + 2·(-1) - 0.1·3 = -3.8
     assertThat(r.choose(s).totals()).containsExactly(new double[] {-7.2, -3.8}, within(1e-12));

@@ -16,11 +16,11 @@ import org.junit.jupiter.params.provider.ValueSource;
 
 /** Mathematical invariants of the softmax (posteriors are non-negative and sum to 1) and its stability. */
 class PosteriorsTest {
-  private static UtteranceScores scores(Object[]... rows) {
+  private static ScoredUtterance scores(Object[]... rows) {
     return new HypothesisScorer(null, Fixtures.WHITESPACE, Fixtures.WHITESPACE, 1, 0).score(utterance("u", rows));
   }
 
-  private static double[] posteriors(UtteranceScores s, double scale, double... systemWeights) {
+  private static double[] posteriors(ScoredUtterance s, double scale, double... systemWeights) {
     double[] totals = new double[s.size()];
     for (int i = 0; i < totals.length; i++) totals[i] = s.feature(i, 0);
     return Posteriors.compute(s, totals, scale, systemWeights, new double[s.size()]);
@@ -34,7 +34,7 @@ class PosteriorsTest {
     double magnitude = Math.pow(10, rnd.nextInt(8));
     List<Object[]> rows = new ArrayList<>();
     for (int i = 0; i < n; i++) rows.add(row("s" + rnd.nextInt(3), i + 1, "t" + i, (rnd.nextDouble() * 2 - 1) * magnitude));
-    UtteranceScores s = scores(rows.toArray(new Object[0][]));
+    ScoredUtterance s = scores(rows.toArray(new Object[0][]));
     double[] w = new double[s.systems().size()];
     for (int k = 0; k < w.length; k++) w[k] = 0.1 + rnd.nextDouble();
     double[] p = posteriors(s, 0.01 + rnd.nextDouble() * 3, w);
@@ -49,7 +49,7 @@ class PosteriorsTest {
   @ParameterizedTest(name = "[{index}] {arguments}")
   @ValueSource(doubles = {1e6, -1e6, 1e300, -1e300})
   void surviveHugeTotals(double big) {
-    UtteranceScores s = scores(row("", 1, "a", big), row("", 2, "b", big - 1), row("", 3, "c", -big));
+    ScoredUtterance s = scores(row("", 1, "a", big), row("", 2, "b", big - 1), row("", 3, "c", -big));
     double[] p = posteriors(s, 1.0, 1.0);
     assertThat(p).doesNotContain(Double.NaN);
     assertThat(p[0] + p[1] + p[2]).isCloseTo(1.0, within(1e-12));
@@ -60,7 +60,7 @@ class PosteriorsTest {
   @Test
   void mixSystemsByTheirNormalisedWeights() {
     // within each system a softmax; systems weigh 3 : 1 → 0.75 and 0.25 of the mass (definition of the mixture)
-    UtteranceScores s = scores(row("a", 1, "x", -1e6), row("a", 2, "y", -1e6), row("b", 1, "x", 5.0));
+    ScoredUtterance s = scores(row("a", 1, "x", -1e6), row("a", 2, "y", -1e6), row("b", 1, "x", 5.0));
     double[] p = posteriors(s, 1.0, 3.0, 1.0);
     assertThat(p).containsExactly(new double[] {0.375, 0.375, 0.25}, within(1e-12));
   }

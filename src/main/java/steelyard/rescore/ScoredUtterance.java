@@ -18,7 +18,7 @@ import steelyard.text.TokenSequence;
  * 8·F + 28 bytes per hypothesis plus the token lists. Immutable after construction except for the lazily
  * built token-id view, which is not thread-safe (one utterance is handled by one thread).
  */
-public final class UtteranceScores {
+public final class ScoredUtterance {
   private final UtteranceHypotheses utterance;
   private final int[] row;
   private final int featureCount;
@@ -33,7 +33,7 @@ public final class UtteranceScores {
   private int[][] tokenIds;
   private Object2IntOpenHashMap<String> localVocabulary;
 
-  UtteranceScores(UtteranceHypotheses utterance, int[] row, int featureCount, double[] features, double[] lmLogProb,
+  ScoredUtterance(UtteranceHypotheses utterance, int[] row, int featureCount, double[] features, double[] lmLogProb,
       int[] oovCount, int[] tokenCount, int[] tieOrder, int[] system, List<String> systems, List<TokenSequence> tokens) {
     this.utterance = utterance;
     this.row = row;
