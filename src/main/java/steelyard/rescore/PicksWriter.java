@@ -103,9 +103,6 @@ public final class PicksWriter {
    * with the space token turned back into a space.
    */
   public static String join(List<String> tokens, Unit unit) {
-    if (unit == Unit.WORD) return String.join(" ", tokens);
-    StringBuilder sb = new StringBuilder();
-    for (String t : tokens) sb.append(Normaliser.SPACE_TOKEN.equals(t) ? " " : t);
-    return sb.toString();
+    return Normaliser.join(tokens, unit);
   }
 }
