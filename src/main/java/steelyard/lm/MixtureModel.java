@@ -1,0 +1,149 @@
+package steelyard.lm;
+
+import it.unimi.dsi.fastutil.objects.Object2IntOpenHashMap;
+import java.util.ArrayList;
+import java.util.List;
+import steelyard.text.NormalisationOptions;
+import steelyard.text.Unit;
+
+/**
+ * Exact linear interpolation of component models: P(w | h) = Σᵢ λᵢ·Pᵢ(w | h), every Pᵢ with its own
+ * back-off. Scores are natural log, like every {@link LanguageModel}.
+ *
+ * <p>The vocabulary is the union of the components' vocabularies (first component's ids first, in order); a
+ * token unknown to one component is scored there as that component's {@code <unk>}. A state keeps the last
+ * (max order − 1) tokens; each query replays that history through every component, so a query costs
+ * O(components · order) component queries — exact, not fast. For speed, write the static approximation
+ * ({@link steelyard.lm.mix.StaticMixture}) and query that.
+ *
+ * <p>Storage: per component an {@code int[]} mapping union ids to component ids (4 bytes per token per
+ * component). Immutable; safe for concurrent readers (working states are per thread).
+ */
+public final class MixtureModel implements LanguageModel {
+  private final List<LanguageModel> components;
+  private final double[] weights;
+  private final int order;
+  private final List<String> tokens = new ArrayList<>();
+  private final Object2IntOpenHashMap<String> ids = new Object2IntOpenHashMap<>();
+  private final int[][] componentIds;
+  private final ThreadLocal<LmState[]> scratch;
+
+  /** Mixes {@code components} with {@code weights} (non-negative, summing to 1 within 1e-9). */
+  public MixtureModel(List<? extends LanguageModel> components, double[] weights) {
+    if (components.isEmpty()) throw new IllegalArgumentException("no components");
+    if (weights.length != components.size())
+      throw new IllegalArgumentException("weights " + weights.length + " != components " + components.size());
+    double sum = 0;
+    for (double w : weights) {
+      if (!(w >= 0)) throw new IllegalArgumentException("mixture weight must be >= 0: " + w);
+      sum += w;
+    }
+    if (Math.abs(sum - 1) > 1e-9) throw new IllegalArgumentException("mixture weights must sum to 1: " + sum);
+    this.components = List.copyOf(components);
+    this.weights = weights.clone();
+    ids.defaultReturnValue(-1);
+    int maxOrder = 1;
+    for (String special : new String[] {BackoffModel.SENTENCE_START, BackoffModel.SENTENCE_END, BackoffModel.UNKNOWN})
+      intern(special);
+    for (LanguageModel c : this.components) {
+      maxOrder = Math.max(maxOrder, c.order());
+      for (int id = 0; id < c.vocabularySize(); id++) intern(c.token(id));
+    }
+    this.order = maxOrder;
+    componentIds = new int[this.components.size()][];
+    for (int i = 0; i < componentIds.length; i++) {
+      LanguageModel c = this.components.get(i);
+      int[] map = new int[tokens.size()];
+      for (int u = 0; u < map.length; u++) map[u] = c.wordId(tokens.get(u));
+      componentIds[i] = map;
+    }
+    scratch = ThreadLocal.withInitial(() -> {
+      LmState[] s = new LmState[this.components.size()];
+      for (int i = 0; i < s.length; i++) s[i] = this.components.get(i).newState();
+      return s;
+    });
+  }
+
+  private void intern(String t) {
+    if (ids.getInt(t) >= 0) return;
+    ids.put(t, tokens.size());
+    tokens.add(t);
+  }
+
+  public List<LanguageModel> components() { return components; }
+  public double[] weights() { return weights.clone(); }
+
+  @Override public int order() { return order; }
+  @Override public Unit unit() { return components.get(0).unit(); }
+  @Override public NormalisationOptions normalisation() { return components.get(0).normalisation(); }
+  @Override public int vocabularySize() { return tokens.size(); }
+  @Override public String token(int id) { return tokens.get(id); }
+  @Override public int unknownId() { return 2; }
+  @Override public int sentenceStartId() { return 0; }
+  @Override public int sentenceEndId() { return 1; }
+
+  @Override
+  public int wordId(String token) {
+    int id = ids.getInt(token);
+    return id < 0 ? unknownId() : id;
+  }
+
+  @Override
+  public LmState newState() {
+    return new LmState(order - 1);
+  }
+
+  @Override
+  public void beginSentence(LmState out) {
+    out.length = 0;
+    out.handle = 0;
+    if (order > 1) {
+      out.history[0] = sentenceStartId();
+      out.length = 1;
+    }
+  }
+
+  @Override
+  public double score(LmState in, int word, LmState out) {
+    double p = 0;
+    LmState[] states = scratch.get();
+    for (int i = 0; i < components.size(); i++) {
+      if (weights[i] == 0) continue;
+      p += weights[i] * Math.exp(componentLogProb(i, states[i], in, word));
+    }
+    shift(in, word, out);
+    return Math.log(p);
+  }
+
+  /** ln Pᵢ(word | history of {@code in}) of component {@code i}. */
+  public double componentLogProb(int i, LmState in, int word) {
+    return componentLogProb(i, scratch.get()[i], in, word);
+  }
+
+  private double componentLogProb(int i, LmState s, LmState in, int word) {
+    LanguageModel c = components.get(i);
+    int[] map = componentIds[i];
+    s.length = 0;
+    s.handle = 0;
+    int skip = Math.max(0, in.length - (c.order() - 1));
+    for (int j = skip; j < in.length; j++) {
+      int h = in.history[j];
+      if (h == sentenceStartId() && j == skip && j == 0) c.beginSentence(s);
+      else c.score(s, map[h], s);
+    }
+    return c.score(s, map[word], s);
+  }
+
+  private void shift(LmState in, int word, LmState out) {
+    int cap = order - 1;
+    if (cap == 0) {
+      out.length = 0;
+      return;
+    }
+    int keep = Math.min(in.length, cap - 1);
+    System.arraycopy(in.history, in.length - keep, out.history, 0, keep);
+    out.history[keep] = word;
+    out.length = keep + 1;
+    out.handle = 0;
+  }
+}
