@@ -11,6 +11,8 @@ import java.util.Map;
 import java.util.Set;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Spec;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import steelyard.eval.Aligner;
@@ -55,6 +57,7 @@ public final class RescoreCommand implements Callable<Integer> {
   @Mixin NormalisationInput normalisation;
   @Mixin RunInput run;
   @Mixin RescoreWeightOptions weightOptions;
+  @Spec CommandSpec spec;
 
   @Option(names = "--lm", paramLabel = "FILE", description = "Language model (.arpa, .arpa.gz or .bin); needed when λ, ω or λ′ is not 0.")
   Path lm;
@@ -105,11 +108,10 @@ public final class RescoreCommand implements Callable<Integer> {
       names.addAll(fileSpec.features.keySet());
     }
     RescoreWeights weights = fileSpec.overlay(weightOptions.spec(names)).resolve(names);
-    Unit unit = normalisation.unit;
+    LanguageModel model = loadModel(weights);
+    Unit unit = unit(fileSpec, model);
     if (fileSpec.unit != null && fileSpec.unit != unit)
       warn("the weights in " + weightsFile + " were tuned at unit " + label(fileSpec.unit) + "; this run uses " + label(unit));
-
-    LanguageModel model = loadModel(weights);
     ModelIdentity identity = lm != null && (saveWeights != null || fileSpec.model != null) ? ModelIdentity.of(lm, model.order()) : null;
     if (fileSpec.model != null && identity != null && !fileSpec.model.sameModel(identity))
       warn("the weights in " + weightsFile + " were tuned with model " + fileSpec.model.file() + ", not " + lm);
@@ -163,6 +165,13 @@ public final class RescoreCommand implements Callable<Integer> {
     }
     finish(summary, weights, unit, identity);
     return Main.OK;
+  }
+
+  /** --unit when given, else the weights file's unit, else the model's, else words. */
+  private Unit unit(WeightsSpec fileSpec, LanguageModel model) {
+    if (spec.commandLine().getParseResult().hasMatchedOption("--unit")) return normalisation.unit;
+    if (fileSpec.unit != null) return fileSpec.unit;
+    return model != null ? model.unit() : normalisation.unit;
   }
 
   private LanguageModel loadModel(RescoreWeights w) {
