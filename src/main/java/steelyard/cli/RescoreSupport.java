@@ -62,8 +62,9 @@ final class RescoreSupport {
   }
 
   static void printSummary(PrintStream err, RescoreSummary s, RescoreMethod method, boolean withReferences) {
-    err.printf(Locale.ROOT, "steelyard rescore: %d utterances by %s; %d choices differ from rank 1%s%n",
+    err.printf(Locale.ROOT, "steelyard rescore: %d utterances by %s; %d choices differ from rank 1%s%s%n",
         s.utterances(), method.label(), s.changed(),
+        s.newTranscripts() > 0 ? ", " + s.newTranscripts() + " are new transcripts" : "",
         s.cappedUtterances() > 0 ? "; the hypothesis cap applied in " + s.cappedUtterances() : "");
     if (withReferences) {
       err.printf(Locale.ROOT, "  error rate %s (rank 1 %s, N-best oracle %s) over %d utterances%n",

@@ -79,6 +79,7 @@ public final class RescoreSummary {
 
   public long utterances() { return utterances; }
   public long changed() { return changed; }
+  public long newTranscripts() { return newTranscripts; }
   public long cappedUtterances() { return capped; }
   public EditCounts chosen() { return chosen; }
   public EditCounts first() { return first; }
