@@ -68,13 +68,28 @@ public final class HypothesisScorer {
         lnP[i] = sentence(lmToks, state, oov, i);
       }
     }
-    TreeMap<String, Integer> systemIds = new TreeMap<>();
-    for (int r : row) systemIds.put(hyps.get(r).system(), 0);
-    List<String> systems = new ArrayList<>(systemIds.keySet());
-    for (int s = 0; s < systems.size(); s++) systemIds.put(systems.get(s), s);
-    int[] sys = new int[n];
-    for (int i = 0; i < n; i++) sys[i] = systemIds.get(hyps.get(row[i]).system());
+    List<String> systems = new ArrayList<>();
+    int[] sys = systemIndexes(hyps, row, systems);
     return new ScoredUtterance(u, row, featureCount, feats, lnP, oov, len, tieOrder(hyps, row), sys, systems, toks);
+  }
+
+  /** Index of each kept row's system among the sorted distinct names (filled into {@code names}). */
+  private static int[] systemIndexes(List<Hypothesis> hyps, int[] row, List<String> names) {
+    int n = row.length;
+    int[] sys = new int[n];
+    String only = hyps.get(row[0]).system();
+    boolean single = true;
+    for (int i = 1; i < n && single; i++) single = hyps.get(row[i]).system().equals(only);
+    if (single) {
+      names.add(only);
+      return sys;
+    }
+    TreeMap<String, Integer> ids = new TreeMap<>();
+    for (int r : row) ids.put(hyps.get(r).system(), 0);
+    names.addAll(ids.keySet());
+    for (int k = 0; k < names.size(); k++) ids.put(names.get(k), k);
+    for (int i = 0; i < n; i++) sys[i] = ids.get(hyps.get(row[i]).system());
+    return sys;
   }
 
   private double sentence(List<String> tokens, LmState s, int[] oov, int i) {
