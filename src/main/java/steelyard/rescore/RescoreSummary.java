@@ -3,7 +3,7 @@ package steelyard.rescore;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.JsonNodeFactory;
 import com.fasterxml.jackson.databind.node.ObjectNode;
-import it.unimi.dsi.fastutil.longs.LongArrayList;
+import it.unimi.dsi.fastutil.ints.IntArrayList;
 import java.util.ArrayList;
 import java.util.List;
 import steelyard.eval.EditCounts;
@@ -15,7 +15,7 @@ import steelyard.eval.EditCounts;
  * and {@code changed}.
  *
  * <p>Per scored utterance it keeps two longs (errors, reference tokens of the choice) for the bootstrap:
- * 16 bytes per utterance in {@link LongArrayList}s.
+ * 8 bytes per utterance in two {@link IntArrayList}s.
  */
 public final class RescoreSummary {
   /** Printed with every result: an automatic pick is a statistical choice. */
@@ -34,8 +34,8 @@ public final class RescoreSummary {
   private long latticeOracleErrors;
   private boolean latticeOracle;
   private long sentenceErrors;
-  private final LongArrayList errorsPerUtterance = new LongArrayList();
-  private final LongArrayList tokensPerUtterance = new LongArrayList();
+  private final IntArrayList errorsPerUtterance = new IntArrayList();
+  private final IntArrayList tokensPerUtterance = new IntArrayList();
   private final List<String> missingHypotheses = new ArrayList<>();
   private final List<String> missingReferences = new ArrayList<>();
 
@@ -73,8 +73,8 @@ public final class RescoreSummary {
     first = first.plus(f);
     oracle = oracle.plus(o);
     if (c.errors() > 0) sentenceErrors++;
-    errorsPerUtterance.add(c.errors());
-    tokensPerUtterance.add(c.referenceTokens());
+    errorsPerUtterance.add(Math.toIntExact(c.errors()));
+    tokensPerUtterance.add(Math.toIntExact(c.referenceTokens()));
   }
 
   public long utterances() { return utterances; }
@@ -86,9 +86,9 @@ public final class RescoreSummary {
   public EditCounts oracle() { return oracle; }
   public long scored() { return scored; }
   /** Per scored utterance (input order, then missing hypotheses): errors of the choice. */
-  public long[] errorsPerUtterance() { return errorsPerUtterance.toLongArray(); }
+  public int[] errorsPerUtterance() { return errorsPerUtterance.toIntArray(); }
   /** Per scored utterance: reference tokens. */
-  public long[] referenceTokensPerUtterance() { return tokensPerUtterance.toLongArray(); }
+  public int[] referenceTokensPerUtterance() { return tokensPerUtterance.toIntArray(); }
 
   /**
    * The JSON summary.
@@ -117,13 +117,8 @@ public final class RescoreSummary {
     o.put("insertions", chosen.insertions());
     rate(o, "error_rate", chosen.errors(), chosen.referenceTokens());
     rate(o, "sentence_error_rate", sentenceErrors, scored);
-    if (ci95 == null) {
-      o.putNull("ci95_low");
-      o.putNull("ci95_high");
-    } else {
-      o.put("ci95_low", ci95[0]);
-      o.put("ci95_high", ci95[1]);
-    }
+    finite(o, "ci95_low", ci95 == null ? Double.NaN : ci95[0]);
+    finite(o, "ci95_high", ci95 == null ? Double.NaN : ci95[1]);
     o.put("missing_hypotheses", missingHypotheses.size());
     o.put("missing_references", missingReferences.size());
     rate(o, "first_error_rate", first.errors(), first.referenceTokens());
@@ -134,6 +129,11 @@ public final class RescoreSummary {
     ArrayNode mr = o.putArray("missing_reference_ids");
     missingReferences.forEach(mr::add);
     return o;
+  }
+
+  /** JSON has no NaN or infinity: an undefined value is null. */
+  private static void finite(ObjectNode o, String key, double v) {
+    if (Double.isFinite(v)) o.put(key, v); else o.putNull(key);
   }
 
   private static void rate(ObjectNode o, String key, long errors, long n) {
