@@ -14,7 +14,7 @@ import steelyard.eval.EditCounts;
  * {@code first_error_rate}, {@code oracle_error_rate}, {@code lattice_oracle_error_rate} (network methods)
  * and {@code changed}.
  *
- * <p>Per scored utterance it keeps two longs (errors, reference tokens of the choice) for the bootstrap:
+ * <p>Per scored utterance it keeps two ints (errors, reference tokens of the choice) for the bootstrap:
  * 8 bytes per utterance in two {@link IntArrayList}s.
  */
 public final class RescoreSummary {
