@@ -16,6 +16,7 @@ import picocli.CommandLine.Spec;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import steelyard.eval.Aligner;
+import steelyard.eval.Bootstrap;
 import steelyard.io.AtomicOutput;
 import steelyard.io.FeatureSpec;
 import steelyard.io.HypothesesReader;
@@ -186,7 +187,14 @@ public final class RescoreCommand implements Callable<Integer> {
   }
 
   private void finish(RescoreSummary summary, RescoreWeights weights, Unit unit, ModelIdentity identity) throws IOException {
-    var node = summary.toJson(method.label(), label(unit), run.seed, refs != null, null);
+    double[] ci = null;
+    if (refs != null) {
+      Bootstrap.Interval iv = Bootstrap.corpusRate(summary.errorsPerUtterance(), summary.referenceTokensPerUtterance(),
+          Bootstrap.DEFAULT_RESAMPLES, run.seed, run.effectiveThreads());
+      ci = new double[] {iv.low(), iv.high()};
+    }
+    var node = summary.toJson(method.label(), label(unit), run.seed, refs != null, ci);
+    if (refs != null) node.put("resamples", Bootstrap.DEFAULT_RESAMPLES);
     var skipped = node.putArray("skipped_rows");
     synchronized (input.skipped) {
       input.skipped.forEach(s -> skipped.addObject().put("file", s.file()).put("line", s.line()).put("reason", s.reason()));

@@ -19,7 +19,9 @@ import steelyard.rescore.RescoreSummary;
 
 /** Output helpers of {@code rescore}: path checks, JSON writing, the stderr summary. */
 final class RescoreSupport {
-  private static final ObjectMapper MAPPER = new ObjectMapper().disable(JsonGenerator.Feature.AUTO_CLOSE_TARGET);
+  private static final ObjectMapper MAPPER = new ObjectMapper()
+      .disable(JsonGenerator.Feature.AUTO_CLOSE_TARGET)
+      .enable(JsonGenerator.Feature.WRITE_BIGDECIMAL_AS_PLAIN);
 
   private RescoreSupport() {}
 

@@ -4,6 +4,8 @@ import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.JsonNodeFactory;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import it.unimi.dsi.fastutil.ints.IntArrayList;
+import java.math.BigDecimal;
+import java.math.RoundingMode;
 import java.util.ArrayList;
 import java.util.List;
 import steelyard.eval.EditCounts;
@@ -21,6 +23,9 @@ public final class RescoreSummary {
   /** Printed with every result: an automatic pick is a statistical choice. */
   public static final String NOTICE = "An automatic pick is not a verified transcript: transcripts with legal, "
       + "medical or safety weight need review by a person.";
+
+  /** Rates and interval ends are written with this many decimals, as by the {@code score} command. */
+  public static final int RATE_DIGITS = 6;
 
   private long utterances;
   private long hypotheses;
@@ -133,10 +138,10 @@ public final class RescoreSummary {
 
   /** JSON has no NaN or infinity: an undefined value is null. */
   private static void finite(ObjectNode o, String key, double v) {
-    if (Double.isFinite(v)) o.put(key, v); else o.putNull(key);
+    if (Double.isFinite(v)) o.put(key, new BigDecimal(v).setScale(RATE_DIGITS, RoundingMode.HALF_EVEN)); else o.putNull(key);
   }
 
   private static void rate(ObjectNode o, String key, long errors, long n) {
-    if (n == 0) o.putNull(key); else o.put(key, (double) errors / n);
+    finite(o, key, n == 0 ? Double.NaN : (double) errors / n);
   }
 }
