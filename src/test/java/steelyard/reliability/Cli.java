@@ -111,8 +111,14 @@ final class Cli {
 
   /** Starts a child JVM; its stdout and stderr go to the given files. */
   static Process start(List<String> jvmOptions, Path stdout, Path stderr, String... args) {
+    return start(jvmOptions, null, stdout, stderr, args);
+  }
+
+  /** Starts a child JVM in working directory {@code cwd} (null: this one's). */
+  static Process start(List<String> jvmOptions, Path cwd, Path stdout, Path stderr, String... args) {
     try {
       return new ProcessBuilder(childCommand(jvmOptions, args))
+          .directory(cwd == null ? null : cwd.toFile())
           .redirectOutput(stdout.toFile())
           .redirectError(stderr.toFile())
           .start();
