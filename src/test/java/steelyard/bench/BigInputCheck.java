@@ -82,7 +82,8 @@ public final class BigInputCheck {
         "-Xmx512m", "-cp", System.getProperty("java.class.path"), HeapWatch.class.getName()));
     cmd.addAll(args);
     long t0 = System.nanoTime();
-    Process p = new ProcessBuilder(cmd).inheritIO().start();
+    Process p = new ProcessBuilder(cmd).redirectOutput(ProcessBuilder.Redirect.DISCARD)
+        .redirectError(ProcessBuilder.Redirect.INHERIT).start();
     int exit = p.waitFor();
     System.out.printf(Locale.ROOT, "%s: exit %d, %.1f s wall (heap figures above, from the child)%n", label, exit, (System.nanoTime() - t0) / 1e9);
   }
