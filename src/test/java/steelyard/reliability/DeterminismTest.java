@@ -82,7 +82,11 @@ class DeterminismTest {
             List.of("picks.csv", "summary.json"))),
         Arguments.of(new Case("rescore --method mbr", List.of("rescore", "--hyps", "{hyps}", "--refs", "{refs}",
             "--features", "acoustic", "--method", "mbr", "--out", "{dir}/picks.csv", "--json", "{dir}/summary.json"),
-            List.of("picks.csv", "summary.json"))));
+            List.of("picks.csv", "summary.json"))),
+        Arguments.of(new Case("rescore --method lattice", List.of("rescore", "--hyps", "{hyps}", "--refs", "{refs}", "--lm", lm,
+            "--features", "acoustic", "--method", "lattice", "--lattice-lm-weight", "0.3", "--out", "{dir}/picks.csv",
+            "--breakdown", "{dir}/breakdown.csv", "--json", "{dir}/summary.json"),
+            List.of("picks.csv", "breakdown.csv", "summary.json"))));
   }
 
   @ParameterizedTest(name = "[{index}] {0}")
