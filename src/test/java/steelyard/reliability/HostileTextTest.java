@@ -1,7 +1,6 @@
 package steelyard.reliability;
 
 import static org.assertj.core.api.Assertions.assertThat;
-import static org.junit.jupiter.api.Assumptions.assumeTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
@@ -12,8 +11,6 @@ import com.opencsv.RFC4180ParserBuilder;
 import java.io.IOException;
 import java.io.StringWriter;
 import java.io.Writer;
-import java.lang.reflect.InvocationTargetException;
-import java.lang.reflect.Method;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -28,6 +25,10 @@ import java.util.TreeSet;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import steelyard.lattice.ConfusionNetwork;
+import steelyard.lattice.LatticeSettings;
+import steelyard.lattice.Lattices;
+import steelyard.lattice.NetworkExport;
 
 /**
  * Transcripts, ids and group names with markup, quotes, commas, newlines, formula prefixes, right-to-left
@@ -151,7 +152,7 @@ class HostileTextTest {
   }
 
   @Test
-  void dotLabelsAreEscapedSoNoTokenAddsSyntax() throws Exception {
+  void dotLabelsAreEscapedSoNoTokenAddsSyntax() throws IOException {
     List<String> tokens = List.of("<script>x</script>", "say\"}];b9->b0[label=\"x", "back\\slash\\", "{brace}",
         "line\nbreak", "\u202Eevil", "a\u0301", "&amp;");
     List<List<String>> hypotheses = new ArrayList<>();
@@ -190,34 +191,12 @@ class HostileTextTest {
     return !s.isEmpty() && FORMULA_PREFIXES.indexOf(s.charAt(0)) >= 0;
   }
 
-  /** Writes the network of {@code hypotheses} as DOT through the lattice package (reflection: it may not be built yet). */
-  private static String dotOf(List<List<String>> hypotheses, double[] posteriors, String title) throws Exception {
-    Class<?> lattices;
-    Class<?> export;
-    Class<?> settingsType;
-    try {
-      lattices = Class.forName("steelyard.lattice.Lattices");
-      export = Class.forName("steelyard.lattice.NetworkExport");
-      settingsType = Class.forName("steelyard.lattice.LatticeSettings");
-    } catch (ClassNotFoundException e) {
-      assumeTrue(false, "DOT export (steelyard.lattice.NetworkExport) not built yet");
-      return null;
-    }
-    try {
-      Object settings = settingsType.getMethod("consensusOnly").invoke(null);
-      Method network = lattices.getMethod("network", List.class, double[].class, settingsType);
-      Object net = network.invoke(null, hypotheses, posteriors, settings);
-      Method writeDot = export.getMethod("writeDot", net.getClass(), String.class, Writer.class);
-      StringWriter out = new StringWriter();
-      writeDot.invoke(null, net, title, out);
-      return out.toString();
-    } catch (NoSuchMethodException e) {
-      assumeTrue(false, "confusion-network DOT export not built yet: " + e.getMessage());
-      return null;
-    } catch (InvocationTargetException e) {
-      if (e.getCause() instanceof UnsupportedOperationException) assumeTrue(false, "confusion networks not built yet");
-      throw e;
-    }
+  /** The DOT export of the confusion network of {@code hypotheses}. */
+  private static String dotOf(List<List<String>> hypotheses, double[] posteriors, String title) throws IOException {
+    ConfusionNetwork net = Lattices.network(hypotheses, posteriors, LatticeSettings.consensusOnly());
+    StringWriter out = new StringWriter();
+    NetworkExport.writeDot(net, title, out);
+    return out.toString();
   }
 
   /** Removes DOT double-quoted strings (backslash escapes inside) from {@code dot}, collecting their contents. */
