@@ -28,7 +28,8 @@ class StrayWritesTest {
         Arguments.of("rescore", List.of("rescore", "--hyps", "{in}/hyps.csv", "--refs", "{in}/refs.csv", "--lm", "{in}/small.arpa",
             "--features", "acoustic", "--lm-weight", "0.5", "--method", "nbest",
             "--out", "{out}/picks.csv", "--breakdown", "{out}/breakdown.csv", "--json", "{out}/summary.json"),
-            List.of("picks.csv", "breakdown.csv", "summary.json")));
+            List.of("picks.csv", "breakdown.csv", "summary.json")),
+        Arguments.of("demo-data", List.of("demo-data", "--out", "{out}/demo"), List.of("demo")));
   }
 
   @ParameterizedTest(name = "[{index}] {0}")
@@ -45,7 +46,7 @@ class StrayWritesTest {
     for (String a : template) args.add(a.replace("{in}", in.toString()).replace("{out}", out.toString()));
 
     Cli.assumeBuilt(Cli.run(args.toArray(String[]::new)), args.toArray(String[]::new));
-    for (String o : outputs) Files.delete(out.resolve(o));
+    for (String o : outputs) deleteTree(out.resolve(o));
     Map<String, Long> parentBefore = Fixtures.listing(parent);
     parentBefore.remove("out");
     Map<String, String> inputsBefore = Fixtures.snapshot(in);
@@ -56,6 +57,8 @@ class StrayWritesTest {
     assertThat(p.exitValue()).as("exit code; stderr: %s", Files.readString(logs.resolve("err"))).isZero();
 
     assertThat(Fixtures.listing(out).keySet()).as("exactly the given outputs, no temporary file left").containsExactlyInAnyOrderElementsOf(outputs);
+    assertThat(Fixtures.snapshot(out).keySet()).as("no temporary (hidden) file left anywhere in the outputs")
+        .noneMatch(f -> Path.of(f).getFileName().toString().startsWith("."));
     assertThat(Fixtures.listing(tmp)).as("nothing in java.io.tmpdir").isEmpty();
     assertThat(Fixtures.listing(home)).as("nothing in user.home").isEmpty();
     assertThat(Fixtures.listing(cwd)).as("nothing in the working directory").isEmpty();
@@ -63,7 +66,12 @@ class StrayWritesTest {
     Map<String, Long> parentAfter = Fixtures.listing(parent);
     parentAfter.remove("out");
     assertThat(parentAfter).as("parent directory entries unchanged").isEqualTo(parentBefore);
-    for (String f : List.of("out", "err")) Files.delete(logs.resolve(f));
-    Files.delete(logs);
+    deleteTree(logs);
+  }
+
+  private static void deleteTree(Path p) throws java.io.IOException {
+    try (Stream<Path> s = Files.walk(p)) {
+      for (Path f : (Iterable<Path>) s.sorted(java.util.Comparator.reverseOrder())::iterator) Files.delete(f);
+    }
   }
 }
