@@ -18,10 +18,13 @@ import org.junit.jupiter.params.provider.MethodSource;
  * Mutated inputs through whole commands, in-process: whatever the bytes, a command ends with exit code 0
  * (outputs written) or 2 (one message line, no stack trace, outputs untouched), never 1: an internal error
  * on some input is a bug, in the reader or in the command behind it. Each failure names its case seed;
- * the bytes are {@code Mutator.mutate(seedFile, new SplittableRandom(caseSeed))}.
+ * the bytes are {@code Mutator.mutate(seedFile, new SplittableRandom(caseSeed))}. Whole commands are slower
+ * than readers, so the default run has 200 cases; {@code -Dsteelyard.fuzz.scale=K} multiplies them (a
+ * run with K = 4, 800 cases, passed when this test was written).
  */
 class CommandFuzzTest {
   private static final long BASE_SEED = 0xC0FFEE_5EEDL;
+  private static final double SCALE = Double.parseDouble(System.getProperty("steelyard.fuzz.scale", "1"));
 
   /** Which input gets mutated, and the command around it ({@code {file}}, {@code {valid}}, {@code {out}}, {@code {method}}). */
   record Target(String name, int cases, String mutated, String extension, String command) {
@@ -33,14 +36,14 @@ class CommandFuzzTest {
 
   static Stream<Arguments> targets() {
     return Stream.of(
-        Arguments.of(new Target("score, hypotheses", 250, "valid/hyps.csv", ".csv",
+        Arguments.of(new Target("score, hypotheses", scaled(60), "valid/hyps.csv", ".csv",
             "score --hyps {file} --refs {valid}/refs.csv --features acoustic,lm --resamples 50 --json {out}/s.json --csv {out}/t.csv")),
-        Arguments.of(new Target("score, references", 150, "valid/refs.csv", ".csv",
+        Arguments.of(new Target("score, references", scaled(40), "valid/refs.csv", ".csv",
             "score --hyps {valid}/hyps.csv --refs {file} --pick oracle --resamples 50 --json {out}/s.json --csv {out}/t.csv")),
-        Arguments.of(new Target("rescore, hypotheses", 250, "valid/hyps.csv", ".csv",
+        Arguments.of(new Target("rescore, hypotheses", scaled(60), "valid/hyps.csv", ".csv",
             "rescore --hyps {file} --refs {valid}/refs.csv --lm {valid}/small.arpa --lm-weight 0.5 --features acoustic,lm"
                 + " --method {method} --out {out}/p.csv --json {out}/s.json")),
-        Arguments.of(new Target("rescore, model", 150, "valid/trigram-pruned.arpa", ".arpa",
+        Arguments.of(new Target("rescore, model", scaled(40), "valid/trigram-pruned.arpa", ".arpa",
             "rescore --hyps {valid}/hyps.csv --lm {file} --lm-weight 0.5 --lattice-lm-weight 0.2 --features acoustic"
                 + " --method {method} --out {out}/p.csv --json {out}/s.json")));
   }
@@ -80,6 +83,10 @@ class CommandFuzzTest {
         .map(a -> a.replace("{file}", file.toString()).replace("{valid}", Fixtures.validDir().toString())
             .replace("{out}", out.toString()).replace("{method}", method))
         .toArray(String[]::new);
+  }
+
+  private static int scaled(int n) {
+    return (int) Math.max(1, Math.round(n * SCALE));
   }
 
   private static void clear(Path dir) throws IOException {
