@@ -31,6 +31,7 @@ class DeterminismTest {
 
   @TempDir static Path inputs;
   static Path hyps;
+  static Path otherHyps;
   static Path refs;
 
   /** 80 utterances × up to 6 hypotheses; scores drawn from a few values so that many totals tie. */
@@ -54,6 +55,10 @@ class DeterminismTest {
     refs = inputs.resolve("refs.csv");
     Files.writeString(hyps, h, StandardCharsets.UTF_8);
     Files.writeString(refs, r, StandardCharsets.UTF_8);
+    otherHyps = inputs.resolve("other-hyps.csv");
+    StringBuilder o = new StringBuilder("utt_id,text\n");
+    for (int u = 0; u < 80; u++) o.append(String.format("dock-%03d", u)).append(',').append(sentence(random)).append('\n');
+    Files.writeString(otherHyps, o, StandardCharsets.UTF_8);
   }
 
   private static String sentence(SplittableRandom random) {
@@ -77,6 +82,8 @@ class DeterminismTest {
             "--json", "{dir}/summary.json", "--csv", "{dir}/table.csv"), List.of("summary.json", "table.csv"))),
         Arguments.of(new Case("score --pick oracle", List.of("score", "--hyps", "{hyps}", "--refs", "{refs}", "--pick", "oracle",
             "--json", "{dir}/summary.json", "--csv", "{dir}/table.csv"), List.of("summary.json", "table.csv"))),
+        Arguments.of(new Case("compare (paired bootstrap, sign test)", List.of("compare", "--refs", "{refs}", "--hyps", "{hyps}",
+            "--hyps", "{other}", "--json", "{dir}/summary.json"), List.of("summary.json"))),
         Arguments.of(new Case("rescore --method nbest", List.of("rescore", "--hyps", "{hyps}", "--refs", "{refs}", "--lm", lm,
             "--features", "acoustic,lm", "--lm-weight", "0.5", "--method", "nbest", "--out", "{dir}/picks.csv", "--json", "{dir}/summary.json"),
             List.of("picks.csv", "summary.json"))),
@@ -113,7 +120,8 @@ class DeterminismTest {
   private static Map<String, byte[]> run(Case c, Path out, String threads) throws IOException {
     List<String> args = new ArrayList<>();
     for (String a : c.args()) {
-      args.add(a.replace("{hyps}", hyps.toString()).replace("{refs}", refs.toString()).replace("{dir}", out.toString()));
+      args.add(a.replace("{hyps}", hyps.toString()).replace("{other}", otherHyps.toString()).replace("{refs}", refs.toString())
+          .replace("{dir}", out.toString()));
     }
     args.addAll(List.of("--threads", threads, "--seed", SEED));
     Cli.Result r = Cli.runBuilt(args.toArray(String[]::new));
