@@ -1,13 +1,152 @@
 package steelyard.cli;
 
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.concurrent.Callable;
+import picocli.CommandLine;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import steelyard.eval.CorpusScore;
+import steelyard.eval.CorpusScorer;
+import steelyard.eval.MissingHypothesisPolicy;
+import steelyard.eval.PairedComparison;
+import steelyard.eval.Pick;
+import steelyard.eval.SystemFilter;
+import steelyard.io.FeatureSpec;
+import steelyard.io.HypothesesReader;
+import steelyard.io.ImportOptions;
+import steelyard.io.InputException;
+import steelyard.io.Reference;
+import steelyard.io.ReferencesReader;
+import steelyard.io.SkippedRow;
+import steelyard.report.CompareReport;
+import steelyard.report.JsonOutput;
+import steelyard.report.OutputPaths;
+import steelyard.text.Normaliser;
+import steelyard.text.Unit;
 
-/** Compare two systems on the same references: paired bootstrap and sign test. */
-@Command(name = "compare", mixinStandardHelpOptions = true, description = "Compare two systems on the same references: paired bootstrap and sign test.")
+/**
+ * {@code steelyard compare}: two systems on the same references. Each is scored as {@code score} would; the
+ * paired statistics (paired bootstrap, sign test) use the utterances both systems are counted on.
+ */
+@Command(
+    name = "compare",
+    mixinStandardHelpOptions = true,
+    description = {
+      "Compare two systems on the same references: both rates with 95%% intervals, the paired-bootstrap interval"
+          + " of the difference, the probability that B is better and an exact sign test.",
+      "The plain-text report goes to stdout (to stderr when --json is '-')."
+    })
 public final class CompareCommand implements Callable<Integer> {
+  // The shared hypotheses mixin takes one --hyps; compare takes two, so its import options are declared here.
+  @Option(names = "--hyps", required = true, paramLabel = "FILE",
+      description = "Hypotheses CSV of a system; give two (A, then B), or one together with --systems.")
+  List<Path> hyps;
+
+  @Option(names = "--systems", paramLabel = "A,B", split = ",",
+      description = "Compare two values of the system column of one hypotheses file (A, then B).")
+  List<String> systems;
+
+  @Option(names = "--names", paramLabel = "A,B", split = ",", description = "Display names of the two systems (default A,B).")
+  List<String> names;
+
+  @Option(names = "--features", paramLabel = "SPECS",
+      description = "Score columns to validate as numbers, comma-separated NAME[:ln|log10|cost|linear][:scale=S].")
+  String features;
+
+  @Option(names = "--primary-system", paramLabel = "NAME", description = "System that wins ties for rank 1 between systems within a file.")
+  String primarySystem;
+
+  @Option(names = "--max-bad-rows", paramLabel = "N", defaultValue = "0", description = "Skip at most N malformed rows per file, reporting each (default ${DEFAULT-VALUE}).")
+  int maxBadRows;
+
+  @Mixin NormalisationInput normalisation;
+  @Mixin RunInput run;
+
+  @Option(names = "--refs", required = true, paramLabel = "FILE", description = "References CSV (utt_id,text[,group]; .gz accepted).")
+  Path refs;
+
+  @Option(names = "--pick", paramLabel = "first|oracle", defaultValue = "first", description = "Hypothesis scored per utterance (default ${DEFAULT-VALUE}).")
+  Pick pick;
+
+  @Option(names = "--missing-hyp", paramLabel = "all-deletions|exclude", defaultValue = "all-deletions",
+      converter = ScoreCommand.MissingPolicyConverter.class,
+      description = "How a reference without a hypothesis counts (default ${DEFAULT-VALUE}); with exclude it leaves the comparison.")
+  MissingHypothesisPolicy missing;
+
+  @Option(names = "--resamples", paramLabel = "N", defaultValue = "1000", description = "Bootstrap resamples (default ${DEFAULT-VALUE}).")
+  int resamples;
+
+  @Option(names = "--json", paramLabel = "FILE|-", description = "Write the JSON summary to FILE, or to stdout with '-'.")
+  Path json;
+
   @Override
   public Integer call() {
-    throw new UnsupportedOperationException("'compare' is not built yet");
+    if (systems == null && hyps.size() != 2)
+      throw InputException.option("--hyps", "given " + hyps.size() + " time(s)", "two hypotheses files, A then B, or one file with --systems A,B");
+    if (systems != null && (hyps.size() != 1 || systems.size() != 2 || systems.get(0).equals(systems.get(1))))
+      throw InputException.option("--systems", "needs one --hyps file and two distinct system names, got " + hyps.size()
+          + " file(s) and '" + String.join(",", systems) + "'", "--hyps FILE --systems A,B");
+    List<String> display = names != null ? names : systems != null ? systems : List.of("A", "B");
+    if (display.size() != 2 || display.get(0).isBlank() || display.get(1).isBlank() || display.get(0).equals(display.get(1)))
+      throw InputException.option("--names", "'" + String.join(",", display) + "' is not two distinct names", "two names such as baseline,tuned");
+    ScoreCommand.checkOptions(pick, resamples, 0);
+    LinkedHashMap<String, Path> outputs = new LinkedHashMap<>();
+    outputs.put("--json", json);
+    List<Path> inputs = new ArrayList<>(hyps);
+    inputs.add(refs);
+    inputs.add(normalisation.rules);
+    OutputPaths.refuseClashes(outputs, inputs);
+
+    List<String> warnings = new ArrayList<>();
+    List<SkippedRow> skipped = new ArrayList<>();
+    ImportOptions options = importOptions(warnings, skipped);
+    Normaliser normaliser = Normaliser.create(normalisation.options());
+    Unit unit = normalisation.unit;
+    LinkedHashMap<String, Reference> refMap = ReferencesReader.readAll(refs, ScoreCommand.withoutFeatures(options));
+    CorpusScorer scorer = new CorpusScorer(raw -> normaliser.tokens(raw, unit), new CorpusScorer.Settings(pick, missing, 0, false));
+    Path fileA = hyps.get(0);
+    Path fileB = systems == null ? hyps.get(1) : hyps.get(0);
+    CorpusScore a = scoreFile(scorer, refMap, fileA, systems == null ? null : systems.get(0), options);
+    CorpusScore b = scoreFile(scorer, refMap, fileB, systems == null ? null : systems.get(1), options);
+    PairedComparison comparison = PairedComparison.of(a, b, resamples, run.seed, run.effectiveThreads());
+    CompareReport.CompareRun report = new CompareReport.CompareRun(refs.toString(), unit, normaliser.describe(),
+        new CompareReport.SystemRun(display.get(0), label(fileA, 0), a),
+        new CompareReport.SystemRun(display.get(1), label(fileB, 1), b),
+        comparison, run.seed, skipped, warnings);
+
+    if (json != null) JsonOutput.write(json, CompareReport.json(report));
+    ScoreCommand.printReport(json, CompareReport.text(report));
+    return Main.OK;
+  }
+
+  // The file, with the system when one file holds both: "dockets.csv system=line-gray".
+  private String label(Path file, int which) {
+    return systems == null ? file.toString() : file + " system=" + systems.get(which);
+  }
+
+  private static CorpusScore scoreFile(
+      CorpusScorer scorer, LinkedHashMap<String, Reference> refMap, Path file, String system, ImportOptions options) {
+    try (HypothesesReader reader = HypothesesReader.open(file, options)) {
+      if (system != null && !reader.hasSystemColumn())
+        throw InputException.inFile(file, "--systems needs a 'system' column, which this file does not have", "a column named system");
+      return scorer.score(refMap, system == null ? reader : new SystemFilter(reader, system));
+    }
+  }
+
+  private ImportOptions importOptions(List<String> warnings, List<SkippedRow> skipped) {
+    List<FeatureSpec> specs = FeatureSpec.parseList(features);
+    return new ImportOptions(specs, primarySystem, maxBadRows,
+        w -> {
+          warnings.add(w);
+          System.err.println("steelyard: warning: " + w);
+        },
+        s -> {
+          skipped.add(s);
+          System.err.println("steelyard: skipped " + s.file() + ":" + s.line() + ": " + s.reason());
+        });
   }
 }

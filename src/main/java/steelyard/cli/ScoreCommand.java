@@ -1,13 +1,164 @@
 package steelyard.cli;
 
+import java.io.OutputStreamWriter;
+import java.io.PrintStream;
+import java.io.PrintWriter;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.concurrent.Callable;
+import picocli.CommandLine;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import steelyard.eval.Bootstrap;
+import steelyard.eval.CorpusScore;
+import steelyard.eval.CorpusScorer;
+import steelyard.eval.MissingHypothesisPolicy;
+import steelyard.eval.Pick;
+import steelyard.eval.SystemFilter;
+import steelyard.io.AtomicOutput;
+import steelyard.io.HypothesesReader;
+import steelyard.io.ImportOptions;
+import steelyard.io.InputException;
+import steelyard.io.Reference;
+import steelyard.io.ReferencesReader;
+import steelyard.report.JsonOutput;
+import steelyard.report.OutputPaths;
+import steelyard.report.ScoreContext;
+import steelyard.report.ScoreReport;
+import steelyard.text.Normaliser;
+import steelyard.text.Unit;
 
-/** Score hypotheses against references: WER/CER with confidence intervals. */
-@Command(name = "score", mixinStandardHelpOptions = true, description = "Score hypotheses against references: WER/CER with confidence intervals.")
+/**
+ * {@code steelyard score}: one pick of hypotheses against references, with a bootstrap interval, groups, the most
+ * frequent errors and what is missing. Reads everything before writing anything, so bad input writes nothing.
+ */
+@Command(
+    name = "score",
+    mixinStandardHelpOptions = true,
+    description = {
+      "Score hypotheses against references: WER/CER with a 95%% bootstrap interval, sentence error rate, groups,"
+          + " most frequent errors and missing utterances.",
+      "The plain-text report goes to stdout (to stderr when --json or --csv is '-')."
+    })
 public final class ScoreCommand implements Callable<Integer> {
+  /** Upper limit of {@code --resamples}: the resample rates are held in memory (8 bytes each). */
+  static final int MAX_RESAMPLES = 1_000_000;
+
+  @Mixin HypothesesInput hypotheses;
+  @Mixin NormalisationInput normalisation;
+  @Mixin RunInput run;
+
+  @Option(names = "--refs", required = true, paramLabel = "FILE", description = "References CSV (utt_id,text[,group]; .gz accepted).")
+  Path refs;
+
+  @Option(names = "--system", paramLabel = "NAME",
+      description = "Score only this value of the system column (its own smallest rank is its pick).")
+  String system;
+
+  @Option(names = "--pick", paramLabel = "first|oracle", defaultValue = "first",
+      description = "Hypothesis scored per utterance: first = the recogniser's rank 1, oracle = fewest errors (default ${DEFAULT-VALUE}).")
+  Pick pick;
+
+  @Option(names = "--missing-hyp", paramLabel = "all-deletions|exclude", defaultValue = "all-deletions",
+      converter = MissingPolicyConverter.class,
+      description = "How a reference without any hypothesis counts (default ${DEFAULT-VALUE}).")
+  MissingHypothesisPolicy missing;
+
+  @Option(names = "--resamples", paramLabel = "N", defaultValue = "1000", description = "Bootstrap resamples (default ${DEFAULT-VALUE}).")
+  int resamples;
+
+  @Option(names = "--top", paramLabel = "K", defaultValue = "10", description = "How many frequent substitutions, deletions and insertions to list (default ${DEFAULT-VALUE}).")
+  int top;
+
+  @Option(names = "--json", paramLabel = "FILE|-", description = "Write the JSON summary to FILE, or to stdout with '-'.")
+  Path json;
+
+  @Option(names = "--csv", paramLabel = "FILE|-", description = "Write the per-utterance table as CSV to FILE, or to stdout with '-'.")
+  Path csv;
+
+  @Option(names = "--spreadsheet-safe", paramLabel = "true|false", arity = "1", defaultValue = "true",
+      description = "In the CSV, prefix cells starting with = + - @ tab or CR with an apostrophe (default ${DEFAULT-VALUE}).")
+  boolean spreadsheetSafe;
+
   @Override
   public Integer call() {
-    throw new UnsupportedOperationException("'score' is not built yet");
+    checkOptions(pick, resamples, top);
+    LinkedHashMap<String, Path> outputs = new LinkedHashMap<>();
+    outputs.put("--json", json);
+    outputs.put("--csv", csv);
+    OutputPaths.refuseClashes(outputs, Arrays.asList(hypotheses.hyps, refs, normalisation.rules));
+
+    List<String> warnings = new ArrayList<>();
+    ImportOptions options = collecting(hypotheses.importOptions(), warnings);
+    Normaliser normaliser = Normaliser.create(normalisation.options());
+    Unit unit = normalisation.unit;
+    LinkedHashMap<String, Reference> refMap = ReferencesReader.readAll(refs, withoutFeatures(options));
+    CorpusScorer scorer = new CorpusScorer(raw -> normaliser.tokens(raw, unit),
+        new CorpusScorer.Settings(pick, missing, top, csv != null));
+    CorpusScore score;
+    try (HypothesesReader reader = HypothesesReader.open(hypotheses.hyps, options)) {
+      if (system != null && !reader.hasSystemColumn())
+        throw InputException.inFile(hypotheses.hyps, "--system needs a 'system' column, which this file does not have", "a column named system");
+      score = scorer.score(refMap, system == null ? reader : new SystemFilter(reader, system));
+    }
+    Bootstrap.Interval ci = Bootstrap.corpusRate(score.table().includedErrors(), score.table().includedReferenceTokens(),
+        resamples, run.seed, run.effectiveThreads());
+    String source = system == null ? hypotheses.hyps.toString() : hypotheses.hyps + " system=" + system;
+    ScoreContext context = new ScoreContext(source, refs.toString(), unit,
+        normaliser.describe(), normaliser.ruleUsage(), run.seed, resamples, ci,
+        hypotheses.skipped, warnings);
+
+    if (csv != null) AtomicOutput.writeText(csv, out -> ScoreReport.csv(score, out, spreadsheetSafe));
+    if (json != null) JsonOutput.write(json, ScoreReport.json(score, context));
+    printReport(OutputPaths.isStdout(csv) ? csv : json, ScoreReport.text(score, context));
+    return Main.OK;
+  }
+
+  /** Prints a text report in UTF-8 whatever the platform charset: to stdout, or to stderr when {@code other} is stdout. */
+  static void printReport(Path other, String text) {
+    PrintStream target = OutputPaths.isStdout(other) ? System.err : System.out;
+    PrintWriter w = new PrintWriter(new OutputStreamWriter(target, StandardCharsets.UTF_8));
+    w.print(text);
+    w.flush();
+  }
+
+  /** Validates the counts every scoring command takes. */
+  static void checkOptions(Pick pick, int resamples, int top) {
+    if (pick == Pick.GIVEN) throw InputException.option("--pick", "'given' is for programs, not the command line", "first or oracle");
+    if (resamples < 1 || resamples > MAX_RESAMPLES)
+      throw InputException.option("--resamples", "must be between 1 and " + MAX_RESAMPLES + ", got " + resamples, "a number such as 1000");
+    if (top < 0) throw InputException.option("--top", "must not be negative, got " + top, "0 or more");
+  }
+
+  /** The same import options, with warnings also collected for the JSON summary. */
+  static ImportOptions collecting(ImportOptions base, List<String> sink) {
+    return new ImportOptions(base.features(), base.primarySystem(), base.maxBadRows(),
+        w -> {
+          synchronized (sink) {
+            sink.add(w);
+          }
+          base.warnings().accept(w);
+        },
+        base.skipped());
+  }
+
+  /** The same options with no feature columns (a references file has none). */
+  static ImportOptions withoutFeatures(ImportOptions o) {
+    return new ImportOptions(List.of(), o.primarySystem(), o.maxBadRows(), o.warnings(), o.skipped());
+  }
+
+  /** Reads {@code all-deletions} or {@code exclude}. */
+  static final class MissingPolicyConverter implements CommandLine.ITypeConverter<MissingHypothesisPolicy> {
+    @Override
+    public MissingHypothesisPolicy convert(String value) {
+      MissingHypothesisPolicy p = MissingHypothesisPolicy.fromLabel(value);
+      if (p == null) throw new CommandLine.TypeConversionException("'" + value + "' is not one of all-deletions, exclude");
+      return p;
+    }
   }
 }
