@@ -44,6 +44,8 @@ class AtomicOutputTest {
     return Stream.of(
         Arguments.of(new Case("score --csv", "table.csv",
             t -> List.of("score", "--hyps", hyps, "--refs", refs, "--features", "acoustic", "--csv", t.toString()))),
+        Arguments.of(new Case("score --json", "summary.json",
+            t -> List.of("score", "--hyps", hyps, "--refs", refs, "--pick", "oracle", "--json", t.toString()))),
         Arguments.of(new Case("rescore --out picks.csv", "picks.csv",
             t -> List.of("rescore", "--hyps", hyps, "--features", "acoustic", "--method", "nbest", "--out", t.toString()))),
         Arguments.of(new Case("lm convert --out .bin", "model.bin",

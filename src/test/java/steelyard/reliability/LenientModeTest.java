@@ -41,6 +41,8 @@ class LenientModeTest {
             List.of("score", "--hyps", hyps.toString(), "--refs", validRefs, "--features", "acoustic"))),
         Arguments.of(new Case("score, references file", refs, List.of(3L, 5L),
             List.of("score", "--hyps", validHyps, "--refs", refs.toString(), "--features", "acoustic"))),
+        Arguments.of(new Case("compare, second hypotheses file", hyps, List.of(3L, 6L),
+            List.of("compare", "--refs", validRefs, "--hyps", validHyps, "--hyps", hyps.toString(), "--features", "acoustic"))),
         Arguments.of(new Case("rescore, hypotheses file", hyps, List.of(3L, 6L),
             List.of("rescore", "--hyps", hyps.toString(), "--features", "acoustic", "--method", "nbest"))));
   }
