@@ -19,8 +19,8 @@ import org.junit.jupiter.params.provider.MethodSource;
  * (outputs written) or 2 (one message line, no stack trace, outputs untouched), never 1: an internal error
  * on some input is a bug, in the reader or in the command behind it. Each failure names its case seed;
  * the bytes are {@code Mutator.mutate(seedFile, new SplittableRandom(caseSeed))}. Whole commands are slower
- * than readers, so the default run has 200 cases; {@code -Dsteelyard.fuzz.scale=K} multiplies them (a
- * run with K = 4, 800 cases, passed when this test was written).
+ * than readers, so the default run has 360 cases; {@code -Dsteelyard.fuzz.scale=K} multiplies them (a
+ * run with K = 6 passed when this test was written).
  */
 class CommandFuzzTest {
   private static final long BASE_SEED = 0xC0FFEE_5EEDL;
@@ -45,7 +45,16 @@ class CommandFuzzTest {
                 + " --method {method} --out {out}/p.csv --json {out}/s.json")),
         Arguments.of(new Target("rescore, model", scaled(40), "valid/trigram-pruned.arpa", ".arpa",
             "rescore --hyps {valid}/hyps.csv --lm {file} --lm-weight 0.5 --lattice-lm-weight 0.2 --features acoustic"
-                + " --method {method} --out {out}/p.csv --json {out}/s.json")));
+                + " --method {method} --out {out}/p.csv --json {out}/s.json")),
+        Arguments.of(new Target("rescore, weights file", scaled(40), "weights/ok-control.json", ".json",
+            "rescore --hyps {valid}/hyps.csv --lm {valid}/small.arpa --features acoustic --weights {file}"
+                + " --method {method} --out {out}/p.csv --json {out}/s.json")),
+        Arguments.of(new Target("score, rules file", scaled(40), "valid/good.rules", ".rules",
+            "score --hyps {valid}/hyps.csv --refs {valid}/refs.csv --rules {file} --resamples 20 --json {out}/s.json")),
+        Arguments.of(new Target("lm train, corpus", scaled(40), "valid/corpus.txt", ".txt",
+            "lm train --text {file} --order 3 --out {out}/m.arpa --json {out}/s.json")),
+        Arguments.of(new Target("lm perplexity, text", scaled(40), "valid/corpus.txt", ".txt",
+            "lm perplexity --lm {valid}/trigram-pruned.arpa --text {file} --json {out}/s.json")));
   }
 
   @ParameterizedTest(name = "[{index}] {0}")
