@@ -1,13 +1,34 @@
 package steelyard.cli;
 
+import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+import steelyard.io.AtomicOutput;
+import steelyard.lm.BackoffModel;
+import steelyard.lm.ModelFiles;
 
 /** Convert a model between ARPA and the binary format. */
-@Command(name = "convert", mixinStandardHelpOptions = true, description = "Convert a model between ARPA and the binary format.")
+@Command(name = "convert", mixinStandardHelpOptions = true, description = "Convert a model between ARPA (.arpa, .arpa.gz) and the binary format (.bin); the format follows the file names.")
 public final class LmConvertCommand implements Callable<Integer> {
+  @Spec picocli.CommandLine.Model.CommandSpec spec;
+  @Mixin LmModelInput input;
+
+  @Option(names = "--out", required = true, paramLabel = "FILE", description = "Output model: .arpa, .arpa.gz or .bin (written atomically).")
+  Path out;
+
   @Override
   public Integer call() {
-    throw new UnsupportedOperationException("'convert' is not built yet");
+    ModelFiles.kind(out);
+    AtomicOutput.refuseOverwritingInput(out, input.lm);
+    BackoffModel model = input.loadExact(spec.commandLine().getErr());
+    ModelFiles.save(model, out);
+    long n = 0;
+    for (int k = 1; k <= model.order(); k++) n += model.ngramCount(k);
+    spec.commandLine().getOut().println("wrote " + out + ": order " + model.order() + ", " + n + " n-grams, " + model.vocabularySize() + " tokens");
+    spec.commandLine().getOut().flush();
+    return 0;
   }
 }

@@ -199,6 +199,16 @@ public final class BackoffModel implements LanguageModel {
     return e;
   }
 
+  /** Entry index (order k−1) of the prefix of entry {@code i} of order {@code k}; −1 for unigrams. */
+  int parentEntry(int k, int i) {
+    return parent[k - 1][i];
+  }
+
+  /** Last token id of entry {@code i} of order {@code k}. */
+  int lastWord(int k, int i) {
+    return word[k - 1][i];
+  }
+
   /** Stored log10 probability of entry {@code i} of order {@code k}; NaN for a context-only entry. */
   public double log10Prob(int k, int i) {
     return log10Prob[k - 1][i];
@@ -260,6 +270,9 @@ public final class BackoffModel implements LanguageModel {
     private final Long2IntOpenHashMap[] index;
     private double unknownFloorLog10 = DEFAULT_UNKNOWN_FLOOR_LOG10;
     private boolean built;
+    private final int[] cachedPrefix = new int[6];
+    private final int[] cachedEntry = new int[6];
+    private int cachedLength;
 
     /** A builder for a model of the given order (1 … 6); {@code <s>}, {@code </s>}, {@code <unk>} get ids 0, 1, 2. */
     public Builder(int order, Unit unit, NormalisationOptions normalisation) {
@@ -296,6 +309,22 @@ public final class BackoffModel implements LanguageModel {
       return id;
     }
 
+    /**
+     * Presizes the storage of order {@code k} (1-based) for about {@code n} entries, e.g. from the counts of an
+     * ARPA {@code \data\} section; only effective before the first entry of that order. Purely a speed hint.
+     */
+    public Builder expectEntries(int k, int n) {
+      int i = k - 1;
+      if (i < 0 || i >= order || n <= 0 || !word[i].isEmpty()) return this;
+      parent[i].ensureCapacity(n);
+      word[i].ensureCapacity(n);
+      prob[i].ensureCapacity(n);
+      backoff[i].ensureCapacity(n);
+      index[i] = new Long2IntOpenHashMap(n);
+      index[i].defaultReturnValue(-1);
+      return this;
+    }
+
     public Builder metadata(String line) {
       metadata.add(line);
       return this;
@@ -317,7 +346,19 @@ public final class BackoffModel implements LanguageModel {
         throw new IllegalArgumentException("n-gram length " + ngram.length + " not in 1.." + order);
       if (Double.isNaN(log10Probability)) throw new IllegalArgumentException("log10 probability is NaN");
       int p = -1;
-      for (int j = 0; j < ngram.length - 1; j++) p = entry(j, p, ngram[j]);
+      boolean same = true;
+      for (int j = 0; j < ngram.length - 1; j++) {
+        // Files list n-grams grouped by context: reuse the previous call's prefix entries while they match.
+        same &= j < cachedLength && cachedPrefix[j] == ngram[j];
+        if (same) {
+          p = cachedEntry[j];
+        } else {
+          p = entry(j, p, ngram[j]);
+          cachedPrefix[j] = ngram[j];
+          cachedEntry[j] = p;
+        }
+      }
+      cachedLength = ngram.length - 1;
       int k = ngram.length - 1;
       long key = key(p, ngram[k]);
       int e = index[k].get(key);

@@ -18,7 +18,8 @@ public final class LmState {
   final int[] history;
   /**
    * For models built on {@link BackoffModel}-style storage: {@code contextIndex[j]} is the entry index of the
-   * history suffix of length j+1 in the order-(j+1) table (so index 0 is the last word's unigram).
+   * history suffix of length j+1 in the order-(j+1) table (so index 0 is the last word's unigram); for
+   * {@link CompactModel}, the slot of that suffix in the order-(j+1) record array (index 0 is the word id).
    */
   final int[] contextIndex;
   int length;

@@ -1,26 +1,86 @@
 package steelyard.lm;
 
 import java.nio.file.Path;
+import java.util.Locale;
+import java.util.function.Consumer;
+import steelyard.io.InputException;
+import steelyard.lm.arpa.ArpaReader;
+import steelyard.lm.arpa.ArpaWriter;
 
 /**
  * Loads and saves language models by file name: {@code .arpa} / {@code .arpa.gz} (log10 text interchange
- * format) or {@code .bin} (the project's binary format). Bad files throw {@link steelyard.io.InputException}.
+ * format, read by {@link ArpaReader}, written by {@link ArpaWriter}) or {@code .bin} (the project's binary format,
+ * {@link BinaryModelFile}). Bad files throw {@link steelyard.io.InputException}; saving is atomic.
  */
 public final class ModelFiles {
+  /** How a file is read: the floor for closed-vocabulary ARPA files, where warnings go, optional progress. */
+  public record LoadOptions(double unknownFloorLog10, Consumer<String> warnings, LoadProgress progress) {
+    /** Floor −7, warnings printed to stderr, no progress. */
+    public static final LoadOptions DEFAULT = new LoadOptions(BackoffModel.DEFAULT_UNKNOWN_FLOOR_LOG10,
+        w -> System.err.println("steelyard: warning: " + w), null);
+
+    public LoadOptions {
+      if (!(unknownFloorLog10 <= 0) || Double.isInfinite(unknownFloorLog10)) {
+        throw InputException.option("--unk-log10", "floor " + unknownFloorLog10 + " is not a finite log10 probability", "a number <= 0");
+      }
+      if (warnings == null) warnings = w -> { };
+    }
+  }
+
+  /** The model file kinds, recognised by name. */
+  public enum Kind { ARPA, BINARY }
+
   private ModelFiles() {}
+
+  /** The kind of {@code file} by its name; any other name is an {@link InputException}. */
+  public static Kind kind(Path file) {
+    String name = file.getFileName() == null ? "" : file.getFileName().toString().toLowerCase(Locale.ROOT);
+    if (name.endsWith(".arpa") || name.endsWith(".arpa.gz")) return Kind.ARPA;
+    if (name.endsWith(".bin")) return Kind.BINARY;
+    throw InputException.option(file.toString(), "unknown model file type", "a name ending in .arpa, .arpa.gz or .bin");
+  }
 
   /** Loads a model for querying (the compact engine for large models). */
   public static LanguageModel load(Path file) {
-    throw new UnsupportedOperationException("not built yet");
+    return load(file, LoadOptions.DEFAULT);
   }
 
-  /** Loads a model in its exact editable form (for mixing, pruning, converting). */
+  /** Loads a model for querying with explicit options: always a {@link CompactModel}. */
+  public static CompactModel load(Path file, LoadOptions options) {
+    switch (kind(file)) {
+      case ARPA:
+        return CompactModel.of(ArpaReader.read(file, options.unknownFloorLog10(), options.warnings(), options.progress()));
+      default:
+        return BinaryModelFile.read(file);
+    }
+  }
+
+  /**
+   * Loads a model in its exact editable form (for mixing, pruning, converting). From {@code .bin} the model is
+   * rebuilt from the stored single-precision values, so it equals the ARPA model it came from to about 7 digits.
+   */
   public static BackoffModel loadExact(Path file) {
-    throw new UnsupportedOperationException("not built yet");
+    return loadExact(file, LoadOptions.DEFAULT);
+  }
+
+  /** Loads a model in its exact editable form with explicit options. */
+  public static BackoffModel loadExact(Path file, LoadOptions options) {
+    switch (kind(file)) {
+      case ARPA:
+        return ArpaReader.read(file, options.unknownFloorLog10(), options.warnings(), options.progress());
+      default:
+        return BinaryModelFile.read(file).toBackoffModel();
+    }
   }
 
   /** Saves atomically, format chosen by the file name. */
   public static void save(BackoffModel model, Path file) {
-    throw new UnsupportedOperationException("not built yet");
+    switch (kind(file)) {
+      case ARPA:
+        ArpaWriter.write(model, file);
+        return;
+      default:
+        BinaryModelFile.write(CompactModel.of(model), file);
+    }
   }
 }

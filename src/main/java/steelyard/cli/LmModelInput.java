@@ -1,0 +1,128 @@
+package steelyard.cli;
+
+import java.io.BufferedReader;
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.function.Function;
+import me.tongfei.progressbar.ConsoleProgressBarConsumer;
+import me.tongfei.progressbar.ProgressBar;
+import me.tongfei.progressbar.ProgressBarBuilder;
+import picocli.CommandLine;
+import picocli.CommandLine.Option;
+import steelyard.io.AtomicOutput;
+import steelyard.io.InputException;
+import steelyard.io.InputFiles;
+import steelyard.lm.BackoffModel;
+import steelyard.lm.CompactModel;
+import steelyard.lm.LanguageModel;
+import steelyard.lm.LoadProgress;
+import steelyard.lm.ModelFiles;
+import steelyard.text.NormalisationOptions;
+import steelyard.text.Normaliser;
+import steelyard.text.Unit;
+
+/** Options of the commands that read one model: {@code --lm}, {@code --unk-log10}, {@code --progress}. */
+public final class LmModelInput {
+  @Option(names = "--lm", required = true, paramLabel = "FILE", description = "Model file: .arpa, .arpa.gz or .bin.")
+  public Path lm;
+
+  @Option(names = "--unk-log10", paramLabel = "X", defaultValue = "-7",
+      description = "log10 probability of out-of-vocabulary tokens for a model without <unk> (closed vocabulary). Default ${DEFAULT-VALUE}.")
+  public double unknownLog10;
+
+  @Option(names = "--progress", description = "Show loading progress on stderr (default: only when attached to a console).")
+  public boolean progress;
+
+  /** The model as the compact query engine. */
+  public CompactModel load(PrintWriter err) {
+    return ModelFiles.load(lm, options(err));
+  }
+
+  /** The model in its exact editable form. */
+  public BackoffModel loadExact(PrintWriter err) {
+    return ModelFiles.loadExact(lm, options(err));
+  }
+
+  private ModelFiles.LoadOptions options(PrintWriter err) {
+    boolean show = progress || System.console() != null;
+    return new ModelFiles.LoadOptions(unknownLog10, w -> warn(err, w), show ? new Bar() : null);
+  }
+
+  /**
+   * The tokenizer for held-out text: the model's recorded unit and normalisation (plus the user's rules file,
+   * which a model cannot record); a warning when the user's own normalisation options differ from the model's.
+   */
+  static Function<String, List<String>> tokenizer(LanguageModel lm, NormalisationInput user, CommandLine.ParseResult parsed, PrintWriter err) {
+    NormalisationOptions mine = user.options();
+    NormalisationOptions model = lm.normalisation();
+    boolean given = false;
+    for (String name : List.of("--unit", "--fold-case", "--strip-punct", "--split-hyphens", "--ignore-space")) {
+      given |= parsed.hasMatchedOption(name);
+    }
+    boolean differs = user.unit != lm.unit() || mine.foldCase() != model.foldCase() || mine.stripPunctuation() != model.stripPunctuation()
+        || mine.splitHyphens() != model.splitHyphens() || mine.ignoreWhitespace() != model.ignoreWhitespace();
+    if (given && differs) {
+      warn(err, "the normalisation options given (" + user.unit.name().toLowerCase(java.util.Locale.ROOT) + ", " + LmInfoCommand.describe(mine)
+          + ") differ from the model's (" + lm.unit().name().toLowerCase(java.util.Locale.ROOT) + ", " + LmInfoCommand.describe(model)
+          + "); the text is normalised as the model was trained");
+    }
+    NormalisationOptions used = new NormalisationOptions(model.foldCase(), model.stripPunctuation(), model.splitHyphens(),
+        model.ignoreWhitespace(), user.rules != null ? user.rules : model.rulesFile());
+    Normaliser normaliser = Normaliser.create(used);
+    Unit unit = lm.unit();
+    return raw -> normaliser.tokenList(raw, unit);
+  }
+
+  /** Calls {@code sink} with (line number, tokens) for every line of {@code text}. */
+  static void forEachSentence(Path text, Function<String, List<String>> tokenizer, SentenceSink sink) {
+    try (BufferedReader in = InputFiles.open(text)) {
+      long line = 0;
+      String raw;
+      while ((raw = in.readLine()) != null) sink.accept(++line, tokenizer.apply(raw));
+    } catch (IOException e) {
+      throw InputException.inFile(text, "cannot read (" + e.getMessage() + ")", "a readable text file").withCause(e);
+    }
+  }
+
+  /** Receives one normalised sentence. */
+  @FunctionalInterface
+  interface SentenceSink {
+    void accept(long line, List<String> tokens);
+  }
+
+  static void warn(PrintWriter err, String message) {
+    err.println("steelyard: warning: " + message);
+    err.flush();
+  }
+
+  /** Writes UTF-8 text atomically to {@code target}, or to stdout when it is {@code -}. */
+  static void writeText(Path target, AtomicOutput.WriterBody body) {
+    AtomicOutput.writeText(target, body);
+  }
+
+  /** Progress on stderr. */
+  private static final class Bar implements LoadProgress {
+    private ProgressBar bar;
+
+    @Override
+    public void start(long total) {
+      bar = new ProgressBarBuilder().setTaskName("reading n-grams").setInitialMax(total)
+          .setConsumer(new ConsoleProgressBarConsumer(System.err)).setUpdateIntervalMillis(250).build();
+    }
+
+    @Override
+    public void step(long done) {
+      if (bar != null) bar.stepTo(done);
+    }
+
+    @Override
+    public void end() {
+      if (bar != null) {
+        bar.stepTo(bar.getMax());
+        bar.close();
+      }
+    }
+  }
+}
