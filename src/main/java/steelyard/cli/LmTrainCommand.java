@@ -1,13 +1,182 @@
 package steelyard.cli;
 
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.SerializationFeature;
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
 import java.util.concurrent.Callable;
+import me.tongfei.progressbar.ConsoleProgressBarConsumer;
+import me.tongfei.progressbar.ProgressBar;
+import me.tongfei.progressbar.ProgressBarBuilder;
+import me.tongfei.progressbar.ProgressBarStyle;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+import steelyard.io.AtomicOutput;
+import steelyard.io.InputException;
+import steelyard.lm.ModelFiles;
+import steelyard.lm.train.CorpusFile;
+import steelyard.lm.train.Discounts;
+import steelyard.lm.train.Smoothing;
+import steelyard.lm.train.TrainedModel;
+import steelyard.lm.train.Trainer;
+import steelyard.lm.train.TrainingOptions;
+import steelyard.lm.train.TrainingReport;
+import steelyard.text.Normaliser;
 
-/** Train an n-gram language model from a text corpus. */
-@Command(name = "train", mixinStandardHelpOptions = true, description = "Train an n-gram language model from a text corpus.")
+/** Train an n-gram language model from a text corpus (one sentence per line) and save it. */
+@Command(name = "train", mixinStandardHelpOptions = true,
+    description = "Train an n-gram language model from a text corpus (one sentence per line, .gz accepted).")
 public final class LmTrainCommand implements Callable<Integer> {
+  @Spec CommandSpec spec;
+
+  @Option(names = "--text", required = true, paramLabel = "FILE", description = "Training corpus, one sentence per line.")
+  Path text;
+
+  @Option(names = "--order", required = true, paramLabel = "N", description = "N-gram order, 1 to 6.")
+  int order;
+
+  @Mixin NormalisationInput normalisation = new NormalisationInput();
+
+  @Option(names = "--smoothing", paramLabel = "mkn|wb|abs|addk", defaultValue = "mkn",
+      description = "Modified Kneser-Ney (default), Witten-Bell, absolute discounting, or add-k (in memory only: cannot be saved).")
+  Smoothing smoothing;
+
+  @Option(names = "--vocab-min-count", paramLabel = "K", defaultValue = "0",
+      description = "Words seen fewer than K times become <unk>.")
+  int vocabMinCount;
+
+  @Option(names = "--max-vocab", paramLabel = "V", defaultValue = "0",
+      description = "Keep only the V most frequent words; the rest become <unk>. 0: no limit.")
+  int maxVocab;
+
+  @Option(names = "--cutoffs", paramLabel = "C1,C2,…", split = ",",
+      description = "Per-order count cut-offs: an n-gram of order k seen at most Ck times is not listed (its mass goes to the back-off). C1 must be 0; the last value repeats.")
+  int[] cutoffs = new int[0];
+
+  @Option(names = "--out", required = true, paramLabel = "FILE", description = "Model file: .arpa, .arpa.gz or .bin.")
+  Path out;
+
+  @Option(names = "--json", paramLabel = "FILE", description = "Also write the training report as JSON (- for stdout).")
+  Path json;
+
+  @Option(names = "--progress", description = "Show progress on stderr even when it is not a terminal.")
+  boolean progress;
+
   @Override
-  public Integer call() {
-    throw new UnsupportedOperationException("'train' is not built yet");
+  public Integer call() throws IOException {
+    TrainingOptions options = options();
+    Normaliser normaliser = Normaliser.create(options.normalisation());
+    CorpusFile corpus = new CorpusFile(text, normaliser, options.unit());
+    Trainer trainer = new Trainer(options);
+    TrainedModel trained;
+    try (ProgressBar bar = progressBar()) {
+      if (bar != null) trainer.onSentences(bar::stepTo);
+      trained = trainer.train(corpus);
+    }
+    long saveStart = System.nanoTime();
+    ModelFiles.save(trained.backoffModel(), out);
+    double saveSeconds = (System.nanoTime() - saveStart) / 1e9;
+    PrintWriter err = spec.commandLine().getErr();
+    err.print(humanReport(trained.report(), saveSeconds));
+    err.flush();
+    if (json != null) writeJson(trained.report(), saveSeconds);
+    return Main.OK;
+  }
+
+  private TrainingOptions options() throws IOException {
+    if (order < 1 || order > 6) throw InputException.option("--order", "order " + order + " is out of range", "1 to 6");
+    if (!smoothing.hasBackoffForm())
+      throw InputException.option("--smoothing", "add-k smoothing has no exact back-off form, so it cannot be written as a model file",
+          "mkn, wb or abs to save a model (add-k is for in-memory comparisons only)");
+    if (vocabMinCount < 0) throw InputException.option("--vocab-min-count", "negative count " + vocabMinCount, "0 or more");
+    if (maxVocab < 0) throw InputException.option("--max-vocab", "negative size " + maxVocab, "0 (no limit) or more");
+    for (int c : cutoffs) if (c < 0) throw InputException.option("--cutoffs", "negative cut-off " + c, "counts of 0 or more");
+    if (cutoffs.length > 0 && cutoffs[0] != 0)
+      throw InputException.option("--cutoffs", "the unigram cut-off is " + cutoffs[0],
+          "0 for unigrams (use --vocab-min-count to drop rare words)");
+    String name = out.getFileName() == null ? "" : out.getFileName().toString().toLowerCase(Locale.ROOT);
+    if (!(name.endsWith(".arpa") || name.endsWith(".arpa.gz") || name.endsWith(".bin")))
+      throw InputException.option("--out", "unknown model file type '" + out + "'", "a name ending in .arpa, .arpa.gz or .bin");
+    if (sameFile(text, out))
+      throw InputException.option("--out", "'" + out + "' is the training corpus", "a different file than --text");
+    if (!Files.isRegularFile(text)) throw InputException.inFile(text, "no such file", "a readable corpus file");
+    return new TrainingOptions(order, normalisation.unit, normalisation.options(), smoothing, vocabMinCount, maxVocab,
+        cutoffs, 1.0);
+  }
+
+  private static boolean sameFile(Path a, Path b) throws IOException {
+    if (a.toAbsolutePath().normalize().equals(b.toAbsolutePath().normalize())) return true;
+    return Files.exists(a) && Files.exists(b) && Files.isSameFile(a, b);
+  }
+
+  private ProgressBar progressBar() {
+    if (!progress && System.console() == null) return null;
+    return new ProgressBarBuilder().setTaskName("counting").setInitialMax(-1).setUnit(" sentences", 1)
+        .setStyle(ProgressBarStyle.ASCII).setConsumer(new ConsoleProgressBarConsumer(System.err))
+        .setUpdateIntervalMillis(500).build();
+  }
+
+  private String humanReport(TrainingReport r, double saveSeconds) {
+    StringBuilder sb = new StringBuilder();
+    sb.append(String.format(Locale.ROOT, "trained a %s %d-gram model (%s) -> %s%n",
+        normalisation.unit.name().toLowerCase(Locale.ROOT), r.order(), r.smoothing().key(), out));
+    sb.append(String.format(Locale.ROOT, "  corpus       %d sentences, %d tokens, %d mapped to <unk>, %d empty lines skipped%n",
+        r.sentences(), r.tokens(), r.unknownTokens(), r.emptyLines()));
+    sb.append(String.format(Locale.ROOT, "  vocabulary   %d token ids (with <s>, </s>, <unk>)%n", r.vocabularySize()));
+    for (int k = 1; k <= r.order(); k++) {
+      Discounts d = r.discounts().isEmpty() ? null : r.discounts().get(k - 1);
+      sb.append(String.format(Locale.ROOT, "  order %d      %d n-grams listed of %d distinct%s%n", k,
+          r.listedNgrams()[k - 1], r.distinctNgrams()[k - 1],
+          d == null || d.values().length == 0 ? "" : ", discounts " + d.formatted()));
+    }
+    for (String w : r.warnings()) sb.append("  warning: ").append(w).append(System.lineSeparator());
+    sb.append(String.format(Locale.ROOT, "  time         %.2f s counting and estimation, %.2f s writing%n", r.seconds(), saveSeconds));
+    return sb.toString();
+  }
+
+  private void writeJson(TrainingReport r, double saveSeconds) {
+    Map<String, Object> m = new LinkedHashMap<>();
+    m.put("model", out.toString());
+    m.put("unit", normalisation.unit.name().toLowerCase(Locale.ROOT));
+    m.put("order", r.order());
+    m.put("smoothing", r.smoothing().key());
+    m.put("sentences", r.sentences());
+    m.put("tokens", r.tokens());
+    m.put("unk_tokens", r.unknownTokens());
+    m.put("empty_lines", r.emptyLines());
+    m.put("vocabulary", r.vocabularySize());
+    List<Map<String, Object>> orders = new ArrayList<>();
+    for (int k = 1; k <= r.order(); k++) {
+      Map<String, Object> o = new LinkedHashMap<>();
+      o.put("order", k);
+      o.put("distinct", r.distinctNgrams()[k - 1]);
+      o.put("listed", r.listedNgrams()[k - 1]);
+      if (!r.discounts().isEmpty()) {
+        Discounts d = r.discounts().get(k - 1);
+        o.put("count_of_counts", d.countOfCounts());
+        o.put("discounts", d.values());
+        o.put("discount_fallback", d.fallback());
+      }
+      orders.add(o);
+    }
+    m.put("ngrams", orders);
+    m.put("warnings", r.warnings());
+    m.put("seconds_training", r.seconds());
+    m.put("seconds_writing", saveSeconds);
+    ObjectMapper mapper = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
+    AtomicOutput.writeText(json, w -> {
+      mapper.writer().without(com.fasterxml.jackson.core.JsonGenerator.Feature.AUTO_CLOSE_TARGET).writeValue(w, m);
+      w.write(System.lineSeparator());
+    });
   }
 }

@@ -1,0 +1,112 @@
+package steelyard.rescore;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.function.Supplier;
+import steelyard.io.UtteranceHypotheses;
+import steelyard.lattice.LatticeChoice;
+import steelyard.lattice.LatticeSettings;
+import steelyard.lattice.Lattices;
+import steelyard.lm.LanguageModel;
+
+/**
+ * The rescoring service: scores each utterance's hypotheses once ({@link HypothesisScorer}), weighs them
+ * log-linearly ({@link LogLinear}), turns totals into posteriors ({@link Posteriors}) and chooses by the
+ * configured {@link RescoreMethod}. {@link #choose} re-weighs already scored utterances without scoring
+ * again (what weight tuning needs).
+ *
+ * <p>Thread-safe: call {@link #rescore} from several threads; per-thread edit-distance work arrays come from a
+ * {@link ThreadLocal}.
+ */
+public final class NbestRescorer {
+  private final HypothesisScorer scorer;
+  private final List<String> featureNames;
+  private final RescoreWeights weights;
+  private final RescoreMethod method;
+  private final LanguageModel lm;
+  private final LogLinear weighting;
+  private final ThreadLocal<EditDistance> distance;
+
+  /**
+   * @param lm       the model for the network search of {@link RescoreMethod#LATTICE}; may be null when λ′ = 0
+   * @param distance makes one edit-distance instance per thread (for MBR)
+   */
+  public NbestRescorer(HypothesisScorer scorer, List<String> featureNames, RescoreWeights weights, RescoreMethod method,
+      LanguageModel lm, Supplier<EditDistance> distance) {
+    this.scorer = scorer;
+    this.featureNames = List.copyOf(featureNames);
+    this.weights = weights;
+    this.method = method;
+    this.lm = lm;
+    this.weighting = LogLinear.of(weights, this.featureNames);
+    this.distance = ThreadLocal.withInitial(distance);
+  }
+
+  public RescoreWeights weights() { return weights; }
+  public RescoreMethod method() { return method; }
+  public List<String> featureNames() { return featureNames; }
+  public LogLinear weighting() { return weighting; }
+
+  /** Scores and chooses one utterance. */
+  public UtteranceResult rescore(UtteranceHypotheses u) {
+    return choose(scorer.score(u));
+  }
+
+  /** Chooses for an already scored utterance with this rescorer's weights and method. */
+  public UtteranceResult choose(ScoredUtterance s) {
+    int n = s.size();
+    double[] totals = weighting.totals(s, new double[n]);
+    double[] post = Posteriors.compute(s, totals, weights.posteriorScale(), systemWeights(s), new double[n]);
+    switch (method) {
+      case NBEST:
+        return result(s, totals, post, LogLinear.best(s, totals), List.of(), null, null);
+      case MBR: {
+        MbrChoice m = new MbrChooser(distance.get(), weights.mbrMaxHypotheses()).choose(s.tokenIds(), post, tieOrders(s));
+        return result(s, totals, post, m.chosen(), List.of(), m, null);
+      }
+      case CONSENSUS:
+      case LATTICE: {
+        LatticeChoice c = network(s, post);
+        int chosen = c.sourceHypothesis();
+        return result(s, totals, post, chosen, chosen < 0 ? c.tokens() : List.of(), null, c);
+      }
+      default:
+        throw new AssertionError(method);
+    }
+  }
+
+  /** The confusion-network choice over the kept hypotheses with their (system-mixed) posteriors. */
+  private LatticeChoice network(ScoredUtterance s, double[] post) {
+    List<List<String>> toks = tokenLists(s);
+    LatticeSettings settings = weights.latticeSettings();
+    return method == RescoreMethod.CONSENSUS
+        ? Lattices.consensus(toks, post, settings)
+        : Lattices.search(toks, post, lm, settings);
+  }
+
+  /** The scoring-unit token lists of the kept hypotheses, as the network methods take them. */
+  public static List<List<String>> tokenLists(ScoredUtterance s) {
+    List<List<String>> toks = new ArrayList<>(s.size());
+    for (int i = 0; i < s.size(); i++) toks.add(s.tokens(i).tokens());
+    return toks;
+  }
+
+  private UtteranceResult result(ScoredUtterance s, double[] totals, double[] post, int chosen, List<String> tokens,
+      MbrChoice mbr, LatticeChoice lattice) {
+    return new UtteranceResult(s, weighting, method, totals, post, chosen, tokens, mbr, lattice);
+  }
+
+  /** Each present system's weight, aligned with {@code s.systems()}. */
+  public double[] systemWeights(ScoredUtterance s) {
+    List<String> names = s.systems();
+    double[] w = new double[names.size()];
+    for (int k = 0; k < w.length; k++) w[k] = weights.systemWeight(names.get(k));
+    return w;
+  }
+
+  private static int[] tieOrders(ScoredUtterance s) {
+    int[] t = new int[s.size()];
+    for (int i = 0; i < t.length; i++) t[i] = s.tieOrder(i);
+    return t;
+  }
+}

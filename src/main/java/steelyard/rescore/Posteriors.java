@@ -1,0 +1,59 @@
+package steelyard.rescore;
+
+/**
+ * Hypothesis posteriors from log-linear totals: a softmax of α·total computed by log-sum-exp, so totals
+ * of any magnitude (±1e6 and beyond) give finite posteriors. With several systems, whose scores need not
+ * share a scale, the softmax runs within each system and the systems are mixed by their weights
+ * normalised over the systems present in the utterance: p(h) = w_s(h) · softmax_s(h).
+ */
+public final class Posteriors {
+  private Posteriors() {}
+
+  /** ln Σ exp(x[i]) over {@code x[0..n)}, stable for large magnitudes; −∞ for n = 0. */
+  public static double logSumExp(double[] x, int n) {
+    double max = Double.NEGATIVE_INFINITY;
+    for (int i = 0; i < n; i++) if (x[i] > max) max = x[i];
+    if (max == Double.NEGATIVE_INFINITY || max == Double.POSITIVE_INFINITY) return max;
+    double sum = 0;
+    for (int i = 0; i < n; i++) sum += Math.exp(x[i] - max);
+    return max + Math.log(sum);
+  }
+
+  /**
+   * Posteriors of every hypothesis of {@code s} into {@code out}, which is returned.
+   *
+   * @param totals        log-linear totals, natural log
+   * @param scale         α &gt; 0
+   * @param systemWeights weight of each of {@code s.systems()} (any positive scale; normalised here)
+   */
+  public static double[] compute(ScoredUtterance s, double[] totals, double scale, double[] systemWeights, double[] out) {
+    int n = s.size();
+    int systems = s.systems().size();
+    double[] max = new double[systems];
+    double[] sum = new double[systems];
+    java.util.Arrays.fill(max, Double.NEGATIVE_INFINITY);
+    for (int i = 0; i < n; i++) {
+      int k = s.systemIndex(i);
+      double v = clamp(scale * totals[i]);
+      if (v > max[k]) max[k] = v;
+    }
+    for (int i = 0; i < n; i++) {
+      int k = s.systemIndex(i);
+      sum[k] += Math.exp(clamp(scale * totals[i]) - max[k]);
+    }
+    double wsum = 0;
+    for (int k = 0; k < systems; k++) wsum += systemWeights[k];
+    for (int i = 0; i < n; i++) {
+      int k = s.systemIndex(i);
+      out[i] = (systemWeights[k] / wsum) * Math.exp(clamp(scale * totals[i]) - max[k]) / sum[k];
+    }
+    return out;
+  }
+
+  /** Keeps α·total finite so that an overflow cannot turn the softmax into NaN. */
+  private static double clamp(double v) {
+    if (v > Double.MAX_VALUE / 4) return Double.MAX_VALUE / 4;
+    if (v < -Double.MAX_VALUE / 4 || Double.isNaN(v)) return -Double.MAX_VALUE / 4;
+    return v;
+  }
+}

@@ -1,0 +1,61 @@
+package steelyard.rescore;
+
+import java.util.List;
+import steelyard.eval.Aligner;
+import steelyard.eval.EditCounts;
+import steelyard.lattice.LatticeSettings;
+import steelyard.lattice.Lattices;
+import steelyard.text.TokenSequence;
+
+/**
+ * Scores a rescoring result against its reference: the chosen transcript, the recogniser's rank 1, the
+ * N-best oracle and optionally the lattice oracle. Tokens flagged optional by the normalisation rules cost
+ * nothing. Not thread-safe (keeps an {@link Aligner}); use one per thread.
+ */
+public final class ReferenceScorer {
+  private final Aligner aligner = new Aligner();
+  private final Tokenizer tokens;
+  private final LatticeSettings network;
+
+  /**
+   * @param tokens  the scoring normalisation, the same that produced the hypotheses' scoring tokens
+   * @param network settings of the confusion network for the lattice oracle; null when not wanted
+   */
+  public ReferenceScorer(Tokenizer tokens, LatticeSettings network) {
+    this.tokens = tokens;
+    this.network = network;
+  }
+
+  public UtteranceErrors score(UtteranceResult r, String referenceText) {
+    ScoredUtterance s = r.scores();
+    TokenSequence ref = tokens.tokenize(referenceText);
+    int[] refIds = s.idsOf(ref.tokens());
+    int[][] ids = s.tokenIds();
+    EditCounts best = null;
+    EditCounts[] per = new EditCounts[s.size()];
+    for (int i = 0; i < s.size(); i++) {
+      per[i] = aligner.count(refIds, ref.optional(), ids[i], s.tokens(i).optional());
+      if (best == null || per[i].errors() < best.errors()) best = per[i];
+    }
+    EditCounts chosen;
+    if (r.isNewTranscript()) {
+      List<String> t = r.newTokens();
+      chosen = aligner.count(refIds, ref.optional(), s.idsOf(t), new boolean[t.size()]);
+    } else {
+      chosen = per[r.chosen()];
+    }
+    long lattice = -1;
+    if (network != null) {
+      lattice = Lattices.oracleErrors(NbestRescorer.tokenLists(s), r.posteriors(), ref.tokens(), network);
+    }
+    return new UtteranceErrors(chosen, per[s.firstIndex()], best, lattice);
+  }
+
+  /** Counts for an utterance with no hypotheses: every reference token deleted. */
+  public EditCounts missingHypotheses(String referenceText) {
+    TokenSequence ref = tokens.tokenize(referenceText);
+    long n = 0;
+    for (boolean o : ref.optional()) if (!o) n++;
+    return new EditCounts(0, 0, n, 0);
+  }
+}

@@ -1,0 +1,73 @@
+package steelyard.rescore;
+
+import java.util.Collections;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.TreeMap;
+import steelyard.lattice.LatticeSettings;
+
+/**
+ * The weights in effect for one run, fully resolved (no gaps). All weights multiply natural-log scores.
+ *
+ * @param features             feature column name → weight wᵢ, in the order of the selected features
+ * @param lmWeight             λ, weight of the model's ln P(sentence)
+ * @param oovWeight            ω, added per out-of-vocabulary token
+ * @param lengthWeight         μ, added per token (negative penalises long hypotheses)
+ * @param posteriorScale       α &gt; 0, multiplies totals before the softmax
+ * @param systemWeights        system name → weight &gt; 0 (systems not listed weigh 1 before normalising)
+ * @param mbrMaxHypotheses     cap on distinct texts (by posterior) entering the MBR sum
+ * @param latticeLmWeight      λ′, LM weight of the confusion-network search
+ * @param latticeLengthWeight  μ′, per-token weight of the confusion-network search
+ * @param beam                 states kept per slot in the confusion-network search
+ * @param latticeMaxHypotheses cap on hypotheses (by posterior) entering one confusion network
+ */
+public record RescoreWeights(
+    Map<String, Double> features,
+    double lmWeight,
+    double oovWeight,
+    double lengthWeight,
+    double posteriorScale,
+    Map<String, Double> systemWeights,
+    int mbrMaxHypotheses,
+    double latticeLmWeight,
+    double latticeLengthWeight,
+    int beam,
+    int latticeMaxHypotheses) {
+
+  public static final int DEFAULT_MBR_MAX_HYPOTHESES = 100;
+
+  public RescoreWeights {
+    features = Collections.unmodifiableMap(new LinkedHashMap<>(features));
+    systemWeights = Collections.unmodifiableMap(new TreeMap<>(systemWeights));
+    if (!(posteriorScale > 0) || !Double.isFinite(posteriorScale))
+      throw new IllegalArgumentException("posterior scale must be finite and > 0: " + posteriorScale);
+    if (mbrMaxHypotheses < 1 || beam < 1 || latticeMaxHypotheses < 1)
+      throw new IllegalArgumentException("caps and beam must be >= 1");
+  }
+
+  /** Weight 1 for every feature, everything else at its default. */
+  public static RescoreWeights defaults(List<String> featureNames) {
+    Map<String, Double> f = new LinkedHashMap<>();
+    for (String n : featureNames) f.put(n, 1.0);
+    return new RescoreWeights(f, 0, 0, 0, 1, Map.of(), DEFAULT_MBR_MAX_HYPOTHESES, 0, 0,
+        LatticeSettings.DEFAULT_BEAM, LatticeSettings.DEFAULT_MAX_HYPOTHESES);
+  }
+
+  /** Feature weights as an array aligned with {@code featureNames} (absent names weigh 1). */
+  public double[] featureWeights(List<String> featureNames) {
+    double[] w = new double[featureNames.size()];
+    for (int i = 0; i < w.length; i++) w[i] = features.getOrDefault(featureNames.get(i), 1.0);
+    return w;
+  }
+
+  /** Weight of a system before normalisation: its listed weight, else 1. */
+  public double systemWeight(String system) {
+    return systemWeights.getOrDefault(system, 1.0);
+  }
+
+  /** The confusion-network settings of these weights. */
+  public LatticeSettings latticeSettings() {
+    return new LatticeSettings(latticeLmWeight, latticeLengthWeight, beam, latticeMaxHypotheses);
+  }
+}

@@ -1,0 +1,236 @@
+package steelyard.rescore;
+
+import com.fasterxml.jackson.core.JsonParser;
+import com.fasterxml.jackson.core.JsonToken;
+import java.io.IOException;
+import java.nio.file.Path;
+import java.util.Collection;
+import java.util.Map;
+import java.util.Set;
+import java.util.TreeSet;
+import steelyard.io.InputException;
+
+/**
+ * Streaming reader of the weights-file schema (see {@link WeightsFile}); streaming rather than a tree so that
+ * every error can name the line and column of the offending token.
+ */
+final class WeightsParser {
+  private final Path file;
+  private final JsonParser p;
+  private final Set<String> knownFeatures;
+  private final WeightsSpec spec = new WeightsSpec();
+
+  WeightsParser(Path file, JsonParser p, Collection<String> knownFeatures) {
+    this.file = file;
+    this.p = p;
+    this.knownFeatures = new TreeSet<>(knownFeatures);
+  }
+
+  WeightsSpec document() throws IOException {
+    JsonToken t = p.nextToken();
+    if (t == null) throw InputException.inFile(file, "empty weights file", "a JSON object with \"format\": \"" + WeightsFile.FORMAT + "\"");
+    expect(JsonToken.START_OBJECT, "a JSON object");
+    boolean sawFormat = false;
+    boolean sawVersion = false;
+    while (nextField()) {
+      String key = p.currentName();
+      p.nextToken();
+      switch (key) {
+        case "format":
+          String f = string();
+          if (!WeightsFile.FORMAT.equals(f)) throw fail("format is '" + f + "'", "\"" + WeightsFile.FORMAT + "\"");
+          sawFormat = true;
+          break;
+        case "version":
+          int v = integer(0);
+          if (v != WeightsFile.VERSION) throw fail("unsupported version " + v, "version " + WeightsFile.VERSION);
+          sawVersion = true;
+          break;
+        case "unit":
+          String u = string();
+          spec.unit = WeightsFile.parseUnit(u);
+          if (spec.unit == null) throw fail("unknown unit '" + u + "'", "\"word\" or \"char\"");
+          break;
+        case "log_base":
+          String b = string();
+          if (!"e".equals(b)) throw fail("log base '" + b + "'", "\"e\" (weights multiply natural-log scores)");
+          break;
+        case "model":
+          model();
+          break;
+        case "methods":
+          methods();
+          break;
+        default:
+          throw unknownKey(key, "format, version, unit, log_base, model, methods");
+      }
+    }
+    if (p.nextToken() != null) throw fail("text after the closing brace", "one JSON object");
+    if (!sawFormat || !sawVersion)
+      throw InputException.inFile(file, "missing \"" + (sawFormat ? "version" : "format") + "\"", "\"format\": \"" + WeightsFile.FORMAT + "\", \"version\": " + WeightsFile.VERSION);
+    return spec;
+  }
+
+  private void model() throws IOException {
+    if (p.currentToken() == JsonToken.VALUE_NULL) return;
+    expect(JsonToken.START_OBJECT, "an object or null");
+    String name = null;
+    Integer order = null;
+    Long bytes = null;
+    String sha = null;
+    while (nextField()) {
+      String key = p.currentName();
+      p.nextToken();
+      switch (key) {
+        case "file": name = string(); break;
+        case "order": order = integer(1); break;
+        case "bytes": bytes = longValue(); break;
+        case "sha256": sha = string(); break;
+        default: throw unknownKey(key, "file, order, bytes, sha256");
+      }
+    }
+    if (order == null || bytes == null || sha == null)
+      throw fail("model needs order, bytes and sha256", "\"model\": {\"file\": …, \"order\": N, \"bytes\": N, \"sha256\": \"…\"}");
+    spec.model = new ModelIdentity(name == null ? "" : name, order, bytes, sha);
+  }
+
+  private void methods() throws IOException {
+    expect(JsonToken.START_OBJECT, "an object of methods");
+    while (nextField()) {
+      String key = p.currentName();
+      p.nextToken();
+      expect(JsonToken.START_OBJECT, "an object");
+      switch (key) {
+        case "nbest": nbest(); break;
+        case "mbr": mbr(); break;
+        case "lattice": lattice(); break;
+        default: throw unknownKey(key, "nbest, mbr, lattice");
+      }
+    }
+  }
+
+  private void nbest() throws IOException {
+    while (nextField()) {
+      String key = p.currentName();
+      p.nextToken();
+      switch (key) {
+        case "features": features(); break;
+        case "lm_weight": spec.lmWeight = number(); break;
+        case "oov_weight": spec.oovWeight = number(); break;
+        case "length_weight": spec.lengthWeight = number(); break;
+        case "posterior_scale": spec.posteriorScale = positive(); break;
+        case "system_weights": systems(); break;
+        default: throw unknownKey(key, "features, lm_weight, oov_weight, length_weight, posterior_scale, system_weights");
+      }
+    }
+  }
+
+  private void mbr() throws IOException {
+    while (nextField()) {
+      String key = p.currentName();
+      p.nextToken();
+      if (!"max_hypotheses".equals(key)) throw unknownKey(key, "max_hypotheses");
+      spec.mbrMaxHypotheses = integer(1);
+    }
+  }
+
+  private void lattice() throws IOException {
+    while (nextField()) {
+      String key = p.currentName();
+      p.nextToken();
+      switch (key) {
+        case "lm_weight": spec.latticeLmWeight = number(); break;
+        case "length_weight": spec.latticeLengthWeight = number(); break;
+        case "beam": spec.beam = integer(1); break;
+        case "max_hypotheses": spec.latticeMaxHypotheses = integer(1); break;
+        default: throw unknownKey(key, "lm_weight, length_weight, beam, max_hypotheses");
+      }
+    }
+  }
+
+  private void features() throws IOException {
+    expect(JsonToken.START_OBJECT, "an object of feature weights");
+    while (nextField()) {
+      String name = p.currentName();
+      if (!knownFeatures.isEmpty() && !knownFeatures.contains(name))
+        throw fail("unknown weight name '" + name + "'", "a weight for one of the --features columns: " + String.join(", ", knownFeatures));
+      p.nextToken();
+      spec.features.put(name, number());
+    }
+  }
+
+  private void systems() throws IOException {
+    expect(JsonToken.START_OBJECT, "an object of system weights");
+    Map<String, Double> m = spec.systemWeights;
+    while (nextField()) {
+      String name = p.currentName();
+      p.nextToken();
+      m.put(name, positive());
+    }
+  }
+
+  /** Advances to the next field name of the current object; false at its end. */
+  private boolean nextField() throws IOException {
+    JsonToken t = p.nextToken();
+    if (t == JsonToken.END_OBJECT) return false;
+    if (t != JsonToken.FIELD_NAME) throw fail("unexpected " + t, "a field name");
+    return true;
+  }
+
+  private void expect(JsonToken type, String what) {
+    if (p.currentToken() != type) throw fail("found " + describe(), what);
+  }
+
+  private String string() throws IOException {
+    if (p.currentToken() != JsonToken.VALUE_STRING) throw fail("'" + p.currentName() + "' is " + describe(), "a string");
+    return p.getText();
+  }
+
+  private double number() throws IOException {
+    JsonToken t = p.currentToken();
+    if (t != JsonToken.VALUE_NUMBER_INT && t != JsonToken.VALUE_NUMBER_FLOAT)
+      throw fail("'" + p.currentName() + "' is " + describe(), "a number");
+    double v = p.getDoubleValue();
+    if (!Double.isFinite(v)) throw fail("'" + p.currentName() + "' is not finite", "a finite number");
+    return v;
+  }
+
+  private double positive() throws IOException {
+    double v = number();
+    if (!(v > 0)) throw fail("'" + p.currentName() + "' is " + v, "a number > 0");
+    return v;
+  }
+
+  private int integer(int min) throws IOException {
+    long v = longValue();
+    if (v < min || v > Integer.MAX_VALUE) throw fail("'" + p.currentName() + "' is " + v, "an integer >= " + min);
+    return (int) v;
+  }
+
+  private long longValue() throws IOException {
+    if (p.currentToken() != JsonToken.VALUE_NUMBER_INT) throw fail("'" + p.currentName() + "' is " + describe(), "an integer");
+    return p.getLongValue();
+  }
+
+  private String describe() {
+    JsonToken t = p.currentToken();
+    if (t == null) return "the end of the file";
+    switch (t) {
+      case VALUE_STRING: return "a string";
+      case VALUE_NUMBER_INT: case VALUE_NUMBER_FLOAT: return "a number";
+      case VALUE_TRUE: case VALUE_FALSE: return "a boolean";
+      case VALUE_NULL: return "null";
+      case START_OBJECT: return "an object";
+      case START_ARRAY: return "an array";
+      default: return t.asString() == null ? t.name() : "'" + t.asString() + "'";
+    }
+  }
+
+  private InputException unknownKey(String key, String allowed) {
+    return fail("unknown key '" + key + "'", "one of " + allowed);
+  }
+
+  private InputException fail(String problem, String expected) {
+    return WeightsFile.at(file, p.currentTokenLocation(), problem, expected);
+  }
+}

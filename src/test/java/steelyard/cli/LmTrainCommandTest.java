@@ -1,0 +1,160 @@
+package steelyard.cli;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.within;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.io.ByteArrayOutputStream;
+import java.io.PrintStream;
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import org.junit.jupiter.api.Nested;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import picocli.CommandLine;
+import steelyard.lm.BackoffModel;
+import steelyard.lm.ModelFiles;
+
+class LmTrainCommandTest {
+  @TempDir Path dir;
+
+  record Run(int exit, String out, String err) {}
+
+  Run run(String... args) {
+    CommandLine cl = Main.commandLine();
+    StringWriter err = new StringWriter();
+    cl.setErr(new PrintWriter(err, true));
+    PrintStream oldOut = System.out;
+    ByteArrayOutputStream out = new ByteArrayOutputStream();
+    System.setOut(new PrintStream(out, true, StandardCharsets.UTF_8));
+    try {
+      int code = cl.execute(args);
+      return new Run(code, out.toString(StandardCharsets.UTF_8), err.toString());
+    } finally {
+      System.setOut(oldOut);
+    }
+  }
+
+  Path corpus() throws Exception {
+    Path f = dir.resolve("corpus.txt");
+    Files.writeString(f, "the crate of pears\nthe crate of apples\n\nTwo crates of pears\n", StandardCharsets.UTF_8);
+    return f;
+  }
+
+  @Nested
+  class Refusals {
+    @Test
+    void addKCannotBeSavedAsAModelFile() throws Exception {
+      Run r = run("lm", "train", "--text", corpus().toString(), "--order", "2", "--smoothing", "addk",
+          "--out", dir.resolve("m.arpa").toString());
+      assertThat(r.exit()).isEqualTo(Main.BAD_INPUT);
+      assertThat(r.err()).contains("--smoothing: add-k smoothing has no exact back-off form").doesNotContain("Exception");
+      assertThat(dir.resolve("m.arpa")).doesNotExist();
+    }
+
+    @Test
+    void theOutputMayNotOverwriteTheCorpus() throws Exception {
+      Path c = dir.resolve("same.arpa");
+      Files.writeString(c, "a b\n");
+      Run r = run("lm", "train", "--text", c.toString(), "--order", "2", "--out", c.toString());
+      assertThat(r.exit()).isEqualTo(Main.BAD_INPUT);
+      assertThat(r.err()).contains("is the training corpus");
+      assertThat(Files.readString(c)).isEqualTo("a b\n");
+    }
+
+    @Test
+    void anUnknownModelFileTypeIsRefusedBeforeTraining() throws Exception {
+      Run r = run("lm", "train", "--text", corpus().toString(), "--order", "2", "--out", dir.resolve("m.txt").toString());
+      assertThat(r.exit()).isEqualTo(Main.BAD_INPUT);
+      assertThat(r.err()).contains("expected a name ending in .arpa, .arpa.gz or .bin");
+    }
+
+    @Test
+    void orderOutOfRangeAndUnigramCutoffAreRefused() throws Exception {
+      String c = corpus().toString(), o = dir.resolve("m.arpa").toString();
+      assertThat(run("lm", "train", "--text", c, "--order", "7", "--out", o).err()).contains("--order: order 7 is out of range");
+      Run r = run("lm", "train", "--text", c, "--order", "3", "--cutoffs", "1,1,1", "--out", o);
+      assertThat(r.exit()).isEqualTo(Main.BAD_INPUT);
+      assertThat(r.err()).contains("--cutoffs: the unigram cut-off is 1");
+    }
+
+    @Test
+    void aMissingCorpusIsAnInputError() {
+      Run r = run("lm", "train", "--text", dir.resolve("none.txt").toString(), "--order", "2",
+          "--out", dir.resolve("m.arpa").toString());
+      assertThat(r.exit()).isEqualTo(Main.BAD_INPUT);
+      assertThat(r.err()).contains("none.txt: no such file");
+    }
+  }
+
+  @Nested
+  class Training {
+    @Test
+    void writesAModelThatScoresLikeTheTrainerAndReportsInJson() throws Exception {
+      Path model = dir.resolve("m.arpa");
+      Run r = run("lm", "train", "--text", corpus().toString(), "--order", "3", "--fold-case", "--out", model.toString(),
+          "--json", "-");
+      assertThat(r.exit()).as(r.err()).isEqualTo(Main.OK);
+      assertThat(r.err()).contains("trained a word 3-gram model (mkn)").contains("1 empty lines skipped");
+      JsonNode j = new ObjectMapper().readTree(r.out());
+      assertThat(j.get("sentences").asLong()).isEqualTo(3);
+      assertThat(j.get("tokens").asLong()).isEqualTo(12);
+      assertThat(j.get("ngrams").get(0).get("listed").asLong()).as("every token id is a listed unigram").isEqualTo(j.get("vocabulary").asLong());
+      assertThat(j.get("warnings").isArray()).isTrue();
+
+      BackoffModel lm = ModelFiles.loadExact(model);
+      assertThat(lm.order()).isEqualTo(3);
+      assertThat(lm.wordId("two")).as("folded at training time").isNotEqualTo(lm.unknownId());
+      double p = Math.exp(lm.sentenceLogProb(List.of("the", "crate", "of", "pears")));
+      assertThat(p).isGreaterThan(Math.exp(lm.sentenceLogProb(List.of("pears", "of", "crate", "the"))));
+      assertThat(lm.metadata()).contains("steelyard.normalisation.fold_case=true", "steelyard.smoothing=mkn");
+      double sum = 0;
+      for (int id = 0; id < lm.vocabularySize(); id++) {
+        if (id != lm.sentenceStartId()) sum += Math.pow(10, lm.log10Prob(new int[] {lm.wordId("crate")}, id));
+      }
+      assertThat(sum).as("read back from ARPA, seven digits on disk").isCloseTo(1, within(1e-5));
+    }
+
+    @Test
+    void theSameCorpusGivesByteIdenticalModelFiles() throws Exception {
+      Path a = dir.resolve("a.arpa"), b = dir.resolve("b.arpa");
+      String c = corpus().toString();
+      assertThat(run("lm", "train", "--text", c, "--order", "4", "--out", a.toString()).exit()).isEqualTo(Main.OK);
+      assertThat(run("lm", "train", "--text", c, "--order", "4", "--out", b.toString()).exit()).isEqualTo(Main.OK);
+      assertThat(Files.readAllBytes(a)).isEqualTo(Files.readAllBytes(b));
+    }
+
+    @Test
+    void vocabularyLimitsAndCutoffsAreAppliedAndRecorded() throws Exception {
+      Path model = dir.resolve("v.arpa");
+      Run r = run("lm", "train", "--text", corpus().toString(), "--order", "3", "--vocab-min-count", "2",
+          "--cutoffs", "0,1", "--smoothing", "abs", "--out", model.toString(), "--json", "-");
+      assertThat(r.exit()).as(r.err()).isEqualTo(Main.OK);
+      BackoffModel lm = ModelFiles.loadExact(model);
+      assertThat(lm.wordId("apples")).as("seen once").isEqualTo(lm.unknownId());
+      assertThat(lm.wordId("crate")).as("seen twice").isNotEqualTo(lm.unknownId());
+      assertThat(lm.metadata()).contains("steelyard.vocab_min_count=2", "steelyard.cutoffs=0,1", "steelyard.smoothing=abs");
+      JsonNode j = new ObjectMapper().readTree(r.out());
+      assertThat(j.get("unk_tokens").asLong()).isEqualTo(3); // apples, Two, crates
+      JsonNode trigrams = j.get("ngrams").get(2);
+      assertThat(trigrams.get("listed").asLong()).isLessThan(trigrams.get("distinct").asLong());
+    }
+
+    @Test
+    void characterModelsUseTheSpaceToken() throws Exception {
+      Path model = dir.resolve("c.arpa.gz");
+      Run r = run("lm", "train", "--text", corpus().toString(), "--order", "4", "--unit", "char",
+          "--smoothing", "wb", "--out", model.toString());
+      assertThat(r.exit()).as(r.err()).isEqualTo(Main.OK);
+      BackoffModel lm = ModelFiles.loadExact(model);
+      assertThat(lm.wordId("<sp>")).isNotEqualTo(lm.unknownId());
+      assertThat(lm.wordId("p")).isNotEqualTo(lm.unknownId());
+      assertThat(lm.metadata()).contains("steelyard.unit=char", "steelyard.smoothing=wb");
+    }
+  }
+}

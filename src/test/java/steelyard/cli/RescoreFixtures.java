@@ -1,0 +1,114 @@
+package steelyard.cli;
+
+import static org.junit.jupiter.api.Assumptions.assumeTrue;
+
+import com.opencsv.CSVReader;
+import java.io.ByteArrayOutputStream;
+import java.io.IOException;
+import java.io.PrintStream;
+import java.io.Reader;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.SplittableRandom;
+import steelyard.eval.Aligner;
+import steelyard.io.AtomicOutput;
+import steelyard.io.HypothesesReader;
+import steelyard.io.ImportOptions;
+import steelyard.text.NormalisationOptions;
+import steelyard.text.Normaliser;
+
+/** Shared helpers of the command tests: in-process runs with captured streams, seeded data sets. */
+final class RescoreFixtures {
+  private RescoreFixtures() {}
+
+  /** Skips when the importer, normaliser, aligner or atomic writer this command stands on is not built yet. */
+  static void assumeFoundationLanded(Path dir) {
+    boolean ok;
+    try {
+      Path p = dir.resolve("probe.csv");
+      Files.writeString(p, "utt_id,text\nu,a\n");
+      try (HypothesesReader r = HypothesesReader.open(p, ImportOptions.strict(List.of()))) {
+        r.hasNext();
+      }
+      Normaliser.create(NormalisationOptions.EXACT);
+      new Aligner().distance(new int[] {1}, new int[] {2});
+      AtomicOutput.writeText(dir.resolve("probe.out"), w -> w.write("x"));
+      ok = true;
+    } catch (UnsupportedOperationException | IOException e) {
+      ok = false;
+    }
+    assumeTrue(ok, "the importer, normaliser, aligner or atomic output is not built yet");
+  }
+
+  static RescoreCommandTest.Result run(String... args) {
+    PrintStream oldOut = System.out;
+    PrintStream oldErr = System.err;
+    ByteArrayOutputStream out = new ByteArrayOutputStream();
+    ByteArrayOutputStream err = new ByteArrayOutputStream();
+    try {
+      System.setOut(new PrintStream(out, true, StandardCharsets.UTF_8));
+      System.setErr(new PrintStream(err, true, StandardCharsets.UTF_8));
+      int code = Main.run(args);
+      return new RescoreCommandTest.Result(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
+    } finally {
+      System.setOut(oldOut);
+      System.setErr(oldErr);
+    }
+  }
+
+  static List<String[]> readCsv(Path file) throws IOException {
+    try (Reader r = Files.newBufferedReader(file); CSVReader csv = new CSVReader(r)) {
+      return csv.readAll();
+    } catch (com.opencsv.exceptions.CsvException e) {
+      throw new IOException(e);
+    }
+  }
+
+  private static final String[] WORDS = {"ten", "crates", "of", "pears", "bay", "nine", "load", "the", "leeks", "cold", "store", "pallet"};
+
+  /**
+   * A seeded invented set: systems a and b, up to 6 hypotheses each, acoustic scores falling with rank (b's
+   * 1000 lower) and a 0–1 confidence; references are the sentences the hypotheses were garbled from; one
+   * utterance in 17 has no reference and one reference has no hypotheses.
+   */
+  static void writeRandomSet(Path hyps, Path refs, long seed, int utterances) throws IOException {
+    SplittableRandom rnd = new SplittableRandom(seed);
+    StringBuilder h = new StringBuilder("utt_id,system,rank,text,acoustic,conf\n");
+    StringBuilder r = new StringBuilder("utt_id,text\n");
+    for (int u = 0; u < utterances; u++) {
+      String id = String.format(Locale.ROOT, "dock-%04d", u);
+      List<String> ref = new ArrayList<>();
+      int len = 2 + rnd.nextInt(8);
+      for (int k = 0; k < len; k++) ref.add(WORDS[rnd.nextInt(WORDS.length)]);
+      if (u % 17 != 5) r.append(id).append(',').append(String.join(" ", ref)).append('\n');
+      for (String sys : new String[] {"a", "b"}) {
+        int n = 1 + rnd.nextInt(6);
+        // system b's scores live on another scale (−1000): rank 1 of a stays the best total overall
+        double ac = -10 * len - ("b".equals(sys) ? 1000 : 0);
+        for (int rank = 1; rank <= n; rank++) {
+          ac -= rnd.nextInt(3) == 0 ? 0 : rnd.nextDouble() * 5;
+          List<String> t = new ArrayList<>(ref);
+          int edits = rnd.nextInt(3);
+          for (int e = 0; e < edits && !t.isEmpty(); e++) {
+            int pos = rnd.nextInt(t.size());
+            switch (rnd.nextInt(3)) {
+              case 0: t.set(pos, WORDS[rnd.nextInt(WORDS.length)]); break;
+              case 1: t.remove(pos); break;
+              default: t.add(pos, WORDS[rnd.nextInt(WORDS.length)]);
+            }
+          }
+          double conf = 0.05 + 0.9 * rnd.nextDouble();
+          h.append(id).append(',').append(sys).append(',').append(rank).append(',').append(String.join(" ", t))
+              .append(',').append(String.format(Locale.ROOT, "%.3f", ac)).append(',').append(String.format(Locale.ROOT, "%.3f", conf)).append('\n');
+        }
+      }
+    }
+    r.append("dock-lost,crates of leeks\n");
+    Files.writeString(hyps, h.toString());
+    Files.writeString(refs, r.toString());
+  }
+}

@@ -1,0 +1,109 @@
+package steelyard.rescore;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.assertThatThrownBy;
+
+import java.io.IOException;
+import java.io.StringReader;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Set;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.params.ParameterizedTest;
+import java.util.stream.Stream;
+import org.junit.jupiter.params.provider.Arguments;
+import org.junit.jupiter.params.provider.MethodSource;
+import steelyard.io.InputException;
+import steelyard.text.Unit;
+
+/** Weights-file schema; line and column positions counted by hand in the JSON texts below. */
+class WeightsFileTest {
+  private static final Path FILE = Path.of("dev.weights.json");
+
+  private static WeightsSpec read(String json, String... features) throws IOException {
+    return WeightsFile.read(FILE, new StringReader(json), Set.of(features));
+  }
+
+  private static WeightsSpec full() {
+    WeightsSpec s = new WeightsSpec();
+    s.features.put("acoustic", 1.0);
+    s.features.put("lm", 0.25);
+    s.systemWeights.put("scan-a", 2.0);
+    s.lmWeight = 9.5;
+    s.oovWeight = -3.0;
+    s.lengthWeight = -0.5;
+    s.posteriorScale = 0.1;
+    s.mbrMaxHypotheses = 50;
+    s.latticeLmWeight = 0.3;
+    s.latticeLengthWeight = 0.1;
+    s.beam = 32;
+    s.latticeMaxHypotheses = 150;
+    s.unit = Unit.CHAR;
+    s.model = new ModelIdentity("dock.arpa", 5, 1234, "ab".repeat(32));
+    return s;
+  }
+
+  @Test
+  void roundTripsEveryValue() throws IOException {
+    String json = WeightsFile.toJson(full());
+    WeightsSpec back = read(json, "acoustic", "lm");
+    assertThat(WeightsFile.toJson(back)).isEqualTo(json);
+    RescoreWeights w = back.resolve(List.of("acoustic", "lm"));
+    assertThat(w).isEqualTo(full().resolve(List.of("acoustic", "lm")));
+    assertThat(back.unit).isEqualTo(Unit.CHAR);
+    assertThat(back.model).isEqualTo(full().model);
+  }
+
+  @Test
+  void optionsOverrideTheFileAndTheFileOverridesDefaults() throws IOException {
+    WeightsSpec file = read(WeightsFile.toJson(full()), "acoustic", "lm");
+    WeightsSpec options = new WeightsSpec();
+    options.lmWeight = 4.0;
+    options.features.put("lm", 0.0);
+    RescoreWeights w = file.overlay(options).resolve(List.of("acoustic", "lm", "confidence"));
+    assertThat(w.lmWeight()).isEqualTo(4.0);
+    assertThat(w.features()).containsExactly(
+        java.util.Map.entry("acoustic", 1.0), java.util.Map.entry("lm", 0.0), java.util.Map.entry("confidence", 1.0));
+    assertThat(w.lengthWeight()).isEqualTo(-0.5);
+    assertThat(w.beam()).isEqualTo(32);
+    RescoreWeights defaults = new WeightsSpec().resolve(List.of("acoustic"));
+    assertThat(defaults).isEqualTo(RescoreWeights.defaults(List.of("acoustic")));
+    assertThat(defaults.lmWeight()).isZero();
+    assertThat(defaults.posteriorScale()).isEqualTo(1.0);
+  }
+
+  @Test
+  void anEmptyFeatureSetAcceptsTheFilesFeatureNames() throws IOException {
+    WeightsSpec s = read(WeightsFile.toJson(full()));
+    assertThat(s.features).containsKeys("acoustic", "lm");
+  }
+
+  private static final String HEAD = "{\"format\":\"steelyard-weights\",\"version\":1,\n";
+
+  static Stream<Arguments> badFiles() {
+    return Stream.of(
+        Arguments.of(HEAD + "\"methods\":{\"nbest\":{\"features\":{\"acustic\":1}}}}", "dev.weights.json:2:33:", "unknown weight name 'acustic'"),
+        Arguments.of(HEAD + "\"methods\":{\"nbest\":{\"lm_weight\":\"high\"}}}", "dev.weights.json:2:33:", "'lm_weight' is a string"),
+        Arguments.of(HEAD + "\"methods\":{\"nbest\":{\"beam_width\":3}}}", "dev.weights.json:2:", "unknown key 'beam_width'"),
+        Arguments.of(HEAD + "\"methods\":{\"lattice\":{\"beam\":2.5}}}", "dev.weights.json:2:", "'beam' is a number"),
+        Arguments.of("{\"format\":\"steelyard-weights\",\n\"version\":1,,}", "dev.weights.json:2:13:", "not valid JSON"),
+        Arguments.of("lm_weight = 3", "dev.weights.json:1:", "not valid JSON"),
+        Arguments.of("{\"format\":\"other\",\"version\":1}", "dev.weights.json:1:", "format is 'other'"));
+  }
+
+  @ParameterizedTest(name = "[{index}] {2}")
+  @MethodSource("badFiles")
+  void badFilesNameTheLineAndColumn(String json, String where, String problem) {
+    assertThatThrownBy(() -> read(json, "acoustic"))
+        .isInstanceOf(InputException.class)
+        .hasMessageStartingWith(where)
+        .hasMessageContaining(problem);
+  }
+
+  @Test
+  void aFileWithoutFormatAndVersionIsRefused() {
+    assertThatThrownBy(() -> read("{\"methods\":{}}", "acoustic"))
+        .isInstanceOf(InputException.class)
+        .hasMessageContaining("missing \"format\"");
+  }
+}
