@@ -1,0 +1,183 @@
+package steelyard.reliability;
+
+import static org.junit.jupiter.api.Assumptions.assumeFalse;
+
+import java.io.ByteArrayOutputStream;
+import java.io.File;
+import java.io.IOException;
+import java.io.PrintStream;
+import java.io.UncheckedIOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.concurrent.TimeUnit;
+import steelyard.cli.Main;
+
+/**
+ * Runs the real command line, in-process ({@link Main#run}) with System.out and System.err captured, or in a
+ * child JVM for the few checks that must kill or isolate the process.
+ */
+final class Cli {
+  private static final Object LOCK = new Object();
+
+  private Cli() {}
+
+  /** What a run printed and returned. */
+  record Result(int exit, String out, String err) {
+    /** Lines on stderr that are messages (not warnings, not progress, not the usage hint). */
+    List<String> messageLines() {
+      List<String> out = new ArrayList<>();
+      for (String line : err.split("\r?\n")) {
+        if (line.isBlank()) continue;
+        if (line.startsWith("steelyard: warning:") || line.startsWith("steelyard: skipped ")) continue;
+        if (line.startsWith("(see '")) continue;
+        out.add(line);
+      }
+      return out;
+    }
+
+    /**
+     * True when the command (or a part it calls) is still the skeleton's placeholder: it throws "not built
+     * yet", or it does not take the options of its issue yet (the placeholder has none).
+     */
+    boolean notBuiltYet() {
+      return exit == Main.INTERNAL && err.contains("not built yet");
+    }
+
+    @Override
+    public String toString() {
+      return "exit " + exit + "\n--- stdout ---\n" + clip(out) + "\n--- stderr ---\n" + clip(err);
+    }
+  }
+
+  /** Runs {@code args} in-process; output streams are captured for the duration of the run. */
+  static Result run(String... args) {
+    synchronized (LOCK) {
+      PrintStream oldOut = System.out;
+      PrintStream oldErr = System.err;
+      ByteArrayOutputStream out = new ByteArrayOutputStream();
+      ByteArrayOutputStream err = new ByteArrayOutputStream();
+      try (PrintStream o = new PrintStream(out, true, StandardCharsets.UTF_8);
+          PrintStream e = new PrintStream(err, true, StandardCharsets.UTF_8)) {
+        System.setOut(o);
+        System.setErr(e);
+        int code = Main.run(args);
+        o.flush();
+        e.flush();
+        return new Result(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
+      } finally {
+        System.setOut(oldOut);
+        System.setErr(oldErr);
+      }
+    }
+  }
+
+  /** Runs and skips the calling test (JUnit assumption) when the command is not built yet. */
+  static Result runBuilt(String... args) {
+    Result r = run(args);
+    assumeBuilt(r, args);
+    return r;
+  }
+
+  static void assumeBuilt(Result r, String... args) {
+    assumeFalse(r.notBuiltYet(), () -> "command '" + commandName(args) + "' (or a part it uses) not built yet: " + firstLine(r.err));
+    assumeFalse(r.exit() == Main.BAD_INPUT && r.err().startsWith("steelyard: Unknown option") && isPlaceholder(args),
+        () -> "command '" + commandName(args) + "' not built yet (it takes no options so far)");
+  }
+
+  /**
+   * Whether the command named by the leading words of {@code args} is still the skeleton's placeholder: it has
+   * no options besides the standard help and version options. A built command that rejects an option is a
+   * real failure, never skipped.
+   */
+  static boolean isPlaceholder(String... args) {
+    picocli.CommandLine cl = Main.commandLine();
+    for (String a : args) {
+      if (a.startsWith("-")) break;
+      picocli.CommandLine sub = cl.getSubcommands().get(a);
+      if (sub == null) break;
+      cl = sub;
+    }
+    return cl.getCommandSpec().options().stream()
+        .allMatch(o -> o.usageHelp() || o.versionHelp());
+  }
+
+  static String commandName(String... args) {
+    StringBuilder sb = new StringBuilder();
+    for (String a : args) {
+      if (a.startsWith("-")) break;
+      if (sb.length() > 0) sb.append(' ');
+      sb.append(a);
+    }
+    return sb.toString();
+  }
+
+  /** The command for a child JVM running {@code steelyard.cli.Main} with the test class path. */
+  static List<String> childCommand(List<String> jvmOptions, String... args) {
+    List<String> cmd = new ArrayList<>();
+    cmd.add(Path.of(System.getProperty("java.home"), "bin", "java").toString());
+    cmd.addAll(jvmOptions);
+    cmd.add("-cp");
+    cmd.add(testClassPath());
+    cmd.add("steelyard.cli.Main");
+    cmd.addAll(Arrays.asList(args));
+    return cmd;
+  }
+
+  /** Starts a child JVM; its stdout and stderr go to the given files. */
+  static Process start(List<String> jvmOptions, Path stdout, Path stderr, String... args) {
+    return start(jvmOptions, null, stdout, stderr, args);
+  }
+
+  /** Starts a child JVM in working directory {@code cwd} (null: this one's). */
+  static Process start(List<String> jvmOptions, Path cwd, Path stdout, Path stderr, String... args) {
+    try {
+      return new ProcessBuilder(childCommand(jvmOptions, args))
+          .directory(cwd == null ? null : cwd.toFile())
+          .redirectOutput(stdout.toFile())
+          .redirectError(stderr.toFile())
+          .start();
+    } catch (IOException e) {
+      throw new UncheckedIOException(e);
+    }
+  }
+
+  /** Runs a child JVM to completion (bounded by {@code timeoutSeconds}). */
+  static Result runChild(List<String> jvmOptions, Path scratch, long timeoutSeconds, String... args) throws Exception {
+    Path out = Files.createTempFile(scratch, "child", ".out");
+    Path err = Files.createTempFile(scratch, "child", ".err");
+    Process p = start(jvmOptions, out, err, args);
+    if (!p.waitFor(timeoutSeconds, TimeUnit.SECONDS)) {
+      p.destroyForcibly().waitFor();
+      throw new AssertionError("child JVM did not finish in " + timeoutSeconds + " s: " + String.join(" ", args));
+    }
+    Result r = new Result(p.exitValue(), Files.readString(out, StandardCharsets.UTF_8), Files.readString(err, StandardCharsets.UTF_8));
+    Files.delete(out);
+    Files.delete(err);
+    return r;
+  }
+
+  /**
+   * The test run's class path: target/classes, target/test-classes and the dependencies. Surefire passes it as
+   * {@code surefire.test.class.path} (its own {@code java.class.path} may be a manifest-only jar).
+   */
+  static String testClassPath() {
+    String cp = System.getProperty("surefire.test.class.path");
+    if (cp == null || cp.isBlank()) cp = System.getProperty("java.class.path");
+    Path classes = Path.of("target", "classes").toAbsolutePath();
+    if (!cp.contains(classes.toString())) cp = classes + File.pathSeparator + cp;
+    return cp;
+  }
+
+  static String firstLine(String s) {
+    int nl = s.indexOf('\n');
+    return nl < 0 ? s : s.substring(0, nl);
+  }
+
+  private static String clip(String s) {
+    return s.length() <= 4000 ? s : s.substring(0, 4000) + "… (" + s.length() + " chars)";
+  }
+}
