@@ -10,8 +10,6 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import org.junit.jupiter.api.Test;
-import org.junit.jupiter.api.io.TempDir;
-import steelyard.cli.Main;
 import steelyard.eval.Aligner;
 import steelyard.io.FeatureSpec;
 import steelyard.io.HypothesesReader;
@@ -21,7 +19,10 @@ import steelyard.io.ReferencesReader;
 import steelyard.io.UtteranceHypotheses;
 import steelyard.lattice.LatticeSettings;
 import steelyard.lm.LanguageModel;
-import steelyard.lm.ModelFiles;
+import steelyard.lm.train.CorpusFile;
+import steelyard.lm.train.Smoothing;
+import steelyard.lm.train.Trainer;
+import steelyard.lm.train.TrainingOptions;
 import steelyard.text.NormalisationOptions;
 import steelyard.text.Normaliser;
 import steelyard.text.TokenSequence;
@@ -35,8 +36,6 @@ import steelyard.text.Unit;
  * scored twice.
  */
 class RealisticRescoreTest {
-  @TempDir Path dir;
-
   static Path realistic() {
     for (String p : new String[] {"../shared/realistic", "../../shared/realistic", "/work/shared/realistic"}) {
       Path d = Path.of(p);
@@ -95,11 +94,11 @@ class RealisticRescoreTest {
   private Data load(String set, Unit unit, int order, String feature) {
     Path base = realistic();
     assumeTrue(base != null && Files.isDirectory(base.resolve(set)), "realistic fixtures not found (../shared/realistic)");
-    Path model = dir.resolve(set + ".arpa");
-    int code = Main.run("lm", "train", "--text", base.resolve(set + "/corpus.txt").toString(), "--order", Integer.toString(order),
-        "--smoothing", "mkn", "--unit", unit == Unit.WORD ? "word" : "char", "--out", model.toString());
-    assumeTrue(code == 0 && Files.exists(model), "the trainer ('lm train') is not built yet");
-    LanguageModel lm = ModelFiles.load(model);
+    // trained in memory through the training API: interpolated modified Kneser-Ney, no cut-offs, exact text
+    TrainingOptions training = new TrainingOptions(order, unit, NormalisationOptions.EXACT, Smoothing.MKN, 0, 0, new int[0], 1.0);
+    LanguageModel lm = new Trainer(training)
+        .train(new CorpusFile(base.resolve(set + "/corpus.txt"), Normaliser.create(NormalisationOptions.EXACT), unit))
+        .model();
     Normaliser scoring = Normaliser.create(NormalisationOptions.EXACT);
     Normaliser lmNorm = Normaliser.create(lm.normalisation());
     Tokenizer unitTokens = raw -> scoring.tokens(raw, unit);
