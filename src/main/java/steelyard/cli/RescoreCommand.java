@@ -95,10 +95,12 @@ public final class RescoreCommand implements Callable<Integer> {
     if (maxHyps < 0) throw InputException.option("--max-hyps", "is " + maxHyps, "0 (all) or a positive number");
     if (run.threads < 0) throw InputException.option("--threads", "is " + run.threads, "0 (all cores) or a positive number");
     Path picks = out != null ? out : (json == null ? Path.of("-") : null);
-    if (picks != null && json != null && picks.toString().equals("-") && json.toString().equals("-"))
-      throw InputException.option("--json", "picks and the JSON summary cannot both go to stdout", "--out FILE or --json FILE");
-    RescoreSupport.checkPaths(java.util.Arrays.asList(input.hyps, lm, refs, weightsFile, normalisation.rules),
-        new Path[] {picks, breakdown, json, saveWeights}, new String[] {"--out", "--breakdown", "--json", "--save-weights"});
+    java.util.Map<String, Path> outputs = new java.util.LinkedHashMap<>();
+    outputs.put("--out", picks);
+    outputs.put("--breakdown", breakdown);
+    outputs.put("--json", json);
+    outputs.put("--save-weights", saveWeights);
+    steelyard.report.OutputPaths.refuseClashes(outputs, java.util.Arrays.asList(input.hyps, lm, refs, weightsFile, normalisation.rules));
 
     List<FeatureSpec> specs = input.featureSpecs();
     List<String> names = new ArrayList<>();

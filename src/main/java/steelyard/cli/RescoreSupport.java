@@ -8,47 +8,18 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.IOException;
 import java.io.PrintStream;
 import java.io.Writer;
-import java.nio.file.Files;
-import java.nio.file.Path;
-import java.util.List;
 import java.util.Locale;
 import steelyard.eval.EditCounts;
-import steelyard.io.InputException;
 import steelyard.rescore.RescoreMethod;
 import steelyard.rescore.RescoreSummary;
 
-/** Output helpers of {@code rescore}: path checks, JSON writing, the stderr summary. */
+/** Output helpers of {@code rescore}: JSON writing, the stderr summary. */
 final class RescoreSupport {
   private static final ObjectMapper MAPPER = new ObjectMapper()
       .disable(JsonGenerator.Feature.AUTO_CLOSE_TARGET)
       .enable(JsonGenerator.Feature.WRITE_BIGDECIMAL_AS_PLAIN);
 
   private RescoreSupport() {}
-
-  /** Refuses an output path equal to an input path or to another output ({@code -} is stdout and exempt). */
-  static void checkPaths(List<Path> inputs, Path[] outputs, String[] names) {
-    for (int i = 0; i < outputs.length; i++) {
-      Path o = outputs[i];
-      if (o == null || o.toString().equals("-")) continue;
-      for (Path in : inputs) {
-        if (in != null && same(in, o))
-          throw InputException.option(names[i], "output " + o + " is also an input", "a different output path");
-      }
-      for (int j = 0; j < i; j++) {
-        if (outputs[j] != null && !outputs[j].toString().equals("-") && same(outputs[j], o))
-          throw InputException.option(names[i], "output " + o + " is also given to " + names[j], "a different output path");
-      }
-    }
-  }
-
-  private static boolean same(Path a, Path b) {
-    if (a.toAbsolutePath().normalize().equals(b.toAbsolutePath().normalize())) return true;
-    try {
-      return Files.exists(a) && Files.exists(b) && Files.isSameFile(a, b);
-    } catch (IOException e) {
-      return false;
-    }
-  }
 
   static JsonNode parse(String json) throws IOException {
     return MAPPER.readTree(json);
