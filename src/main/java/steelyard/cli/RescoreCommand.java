@@ -177,13 +177,7 @@ public final class RescoreCommand implements Callable<Integer> {
 
   private LanguageModel loadModel(RescoreWeights w) {
     boolean needed = w.lmWeight() != 0 || w.oovWeight() != 0 || (method == RescoreMethod.LATTICE && w.latticeLmWeight() != 0);
-    if (lm == null) {
-      if (needed)
-        throw InputException.option("--lm", "no model given, but the LM weight, OOV weight or lattice LM weight is not 0",
-            "--lm FILE, or weights of 0");
-      return null;
-    }
-    return ModelFiles.load(lm);
+    return RescoreSupport.loadModel(lm, needed);
   }
 
   private void finish(RescoreSummary summary, RescoreWeights weights, Unit unit, ModelIdentity identity) throws IOException {
@@ -214,11 +208,11 @@ public final class RescoreCommand implements Callable<Integer> {
   }
 
   private static ImportOptions withFeatures(ImportOptions o, List<FeatureSpec> specs) {
-    return new ImportOptions(specs, o.primarySystem(), o.maxBadRows(), o.warnings(), o.skipped());
+    return RescoreSupport.withFeatures(o, specs);
   }
 
   private static String label(Unit u) {
-    return u == Unit.WORD ? "word" : "char";
+    return RescoreSupport.label(u);
   }
 
   private interface Body {

@@ -13,6 +13,11 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.Locale;
 import steelyard.eval.EditCounts;
+import steelyard.io.FeatureSpec;
+import steelyard.io.ImportOptions;
+import steelyard.lm.LanguageModel;
+import steelyard.lm.ModelFiles;
+import steelyard.text.Unit;
 import steelyard.io.InputException;
 import steelyard.rescore.RescoreMethod;
 import steelyard.rescore.RescoreSummary;
@@ -48,6 +53,27 @@ final class RescoreSupport {
     } catch (IOException e) {
       return false;
     }
+  }
+
+  /** The model at {@code lm}, or null when none is given; an {@link InputException} when one is {@code needed} but absent. */
+  static LanguageModel loadModel(Path lm, boolean needed) {
+    if (lm == null) {
+      if (needed)
+        throw InputException.option("--lm", "no model given, but the LM weight, OOV weight or lattice LM weight is not 0",
+            "--lm FILE, or weights of 0");
+      return null;
+    }
+    return ModelFiles.load(lm);
+  }
+
+  /** {@code o} reading exactly the feature columns {@code specs}. */
+  static ImportOptions withFeatures(ImportOptions o, List<FeatureSpec> specs) {
+    return new ImportOptions(specs, o.primarySystem(), o.maxBadRows(), o.warnings(), o.skipped());
+  }
+
+  /** The unit's name as the command line and the weights file spell it. */
+  static String label(Unit u) {
+    return u == Unit.WORD ? "word" : "char";
   }
 
   static JsonNode parse(String json) throws IOException {
