@@ -89,25 +89,15 @@ public final class NetworkCommand implements Callable<Integer> {
 
     List<FeatureSpec> specs = input.featureSpecs();
     List<String> names = new ArrayList<>();
-    for (FeatureSpec s : specs) names.add(s.name());
-    WeightsSpec fileSpec = weightsFile == null ? new WeightsSpec() : WeightsFile.read(weightsFile, names);
-    if (specs.isEmpty()) {
-      for (String n : fileSpec.features.keySet()) specs.add(FeatureSpec.parse(n));
-      names.addAll(fileSpec.features.keySet());
-    }
+    WeightsSpec fileSpec = RescoreSupport.readWeights(weightsFile, specs, names);
     RescoreWeights weights = fileSpec.overlay(weightOptions.spec(names)).resolve(names);
     boolean needed = weights.lmWeight() != 0 || weights.oovWeight() != 0 || (kbest > 0 && weights.latticeLmWeight() != 0);
     LanguageModel model = RescoreSupport.loadModel(lm, needed);
-    Unit unit = unit(fileSpec, model);
+    Unit unit = RescoreSupport.unit(spec.commandLine().getParseResult().hasMatchedOption("--unit"), normalisation.unit, fileSpec, model);
 
     Normaliser scoring = Normaliser.create(normalisation.options());
     Tokenizer unitTokens = raw -> scoring.tokens(raw, unit);
-    Tokenizer lmTokens = unitTokens;
-    if (model != null && !(model.unit() == unit && model.normalisation().equals(normalisation.options()))) {
-      Normaliser lmNorm = Normaliser.create(model.normalisation());
-      Unit lmUnit = model.unit();
-      lmTokens = raw -> lmNorm.tokens(raw, lmUnit);
-    }
+    Tokenizer lmTokens = RescoreSupport.lmTokens(model, unit, normalisation.options(), unitTokens);
     UtteranceHypotheses u = find(RescoreSupport.withFeatures(input.importOptions(), specs));
     HypothesisScorer scorer = new HypothesisScorer(model, lmTokens, unitTokens, names.size(), 0);
     NbestRescorer rescorer = new NbestRescorer(scorer, names, weights, RescoreMethod.LATTICE, model, () -> new Aligner()::distance);
@@ -129,13 +119,6 @@ public final class NetworkCommand implements Callable<Integer> {
         uttId, s.size(), net.enteredCount(), net.slotCount(), net.arcCount(),
         net.capped() ? " (the hypothesis cap applied)" : "");
     return Main.OK;
-  }
-
-  /** As rescore: --unit when given, else the weights file's unit, else the model's, else words. */
-  private Unit unit(WeightsSpec fileSpec, LanguageModel model) {
-    if (spec.commandLine().getParseResult().hasMatchedOption("--unit")) return normalisation.unit;
-    if (fileSpec.unit != null) return fileSpec.unit;
-    return model != null ? model.unit() : normalisation.unit;
   }
 
   /** Streams the hypotheses file up to the utterance; its absence is an input error naming --utt. */

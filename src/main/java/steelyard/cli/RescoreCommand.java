@@ -25,7 +25,6 @@ import steelyard.io.InputException;
 import steelyard.io.Reference;
 import steelyard.io.ReferencesReader;
 import steelyard.lm.LanguageModel;
-import steelyard.lm.ModelFiles;
 import steelyard.rescore.HypothesisScorer;
 import steelyard.rescore.ModelIdentity;
 import steelyard.rescore.NbestRescorer;
@@ -102,12 +101,7 @@ public final class RescoreCommand implements Callable<Integer> {
 
     List<FeatureSpec> specs = input.featureSpecs();
     List<String> names = new ArrayList<>();
-    for (FeatureSpec s : specs) names.add(s.name());
-    WeightsSpec fileSpec = weightsFile == null ? new WeightsSpec() : WeightsFile.read(weightsFile, names);
-    if (specs.isEmpty()) {
-      for (String n : fileSpec.features.keySet()) specs.add(FeatureSpec.parse(n));
-      names.addAll(fileSpec.features.keySet());
-    }
+    WeightsSpec fileSpec = RescoreSupport.readWeights(weightsFile, specs, names);
     RescoreWeights weights = fileSpec.overlay(weightOptions.spec(names)).resolve(names);
     LanguageModel model = loadModel(weights);
     Unit unit = unit(fileSpec, model);
@@ -119,13 +113,8 @@ public final class RescoreCommand implements Callable<Integer> {
 
     Normaliser scoring = Normaliser.create(normalisation.options());
     Tokenizer unitTokens = raw -> scoring.tokens(raw, unit);
-    Tokenizer lmTokens = unitTokens;
-    if (model != null && !(model.unit() == unit && model.normalisation().equals(normalisation.options()))) {
-      Normaliser lmNorm = Normaliser.create(model.normalisation());
-      Unit lmUnit = model.unit();
-      lmTokens = raw -> lmNorm.tokens(raw, lmUnit);
-      if (lmUnit != unit) warn("the model's unit is " + label(lmUnit) + ", the scoring unit " + label(unit));
-    }
+    Tokenizer lmTokens = RescoreSupport.lmTokens(model, unit, normalisation.options(), unitTokens);
+    if (model != null && model.unit() != unit) warn("the model's unit is " + label(model.unit()) + ", the scoring unit " + label(unit));
     ImportOptions importOptions = withFeatures(input.importOptions(), specs);
     Map<String, Reference> references = refs == null ? null : ReferencesReader.readAll(refs, importOptions);
 
@@ -170,9 +159,7 @@ public final class RescoreCommand implements Callable<Integer> {
 
   /** --unit when given, else the weights file's unit, else the model's, else words. */
   private Unit unit(WeightsSpec fileSpec, LanguageModel model) {
-    if (spec.commandLine().getParseResult().hasMatchedOption("--unit")) return normalisation.unit;
-    if (fileSpec.unit != null) return fileSpec.unit;
-    return model != null ? model.unit() : normalisation.unit;
+    return RescoreSupport.unit(spec.commandLine().getParseResult().hasMatchedOption("--unit"), normalisation.unit, fileSpec, model);
   }
 
   private LanguageModel loadModel(RescoreWeights w) {

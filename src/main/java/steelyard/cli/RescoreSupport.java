@@ -17,6 +17,11 @@ import steelyard.io.FeatureSpec;
 import steelyard.io.ImportOptions;
 import steelyard.lm.LanguageModel;
 import steelyard.lm.ModelFiles;
+import steelyard.rescore.Tokenizer;
+import steelyard.rescore.WeightsFile;
+import steelyard.rescore.WeightsSpec;
+import steelyard.text.NormalisationOptions;
+import steelyard.text.Normaliser;
 import steelyard.text.Unit;
 import steelyard.io.InputException;
 import steelyard.rescore.RescoreMethod;
@@ -64,6 +69,35 @@ final class RescoreSupport {
       return null;
     }
     return ModelFiles.load(lm);
+  }
+
+  /**
+   * The weights file's partial weights (empty without a file). Fills {@code names} with the feature names of
+   * {@code specs}; when {@code specs} is empty, the run takes its features from the file (added to both).
+   */
+  static WeightsSpec readWeights(Path file, List<FeatureSpec> specs, List<String> names) {
+    for (FeatureSpec s : specs) names.add(s.name());
+    WeightsSpec fileSpec = file == null ? new WeightsSpec() : WeightsFile.read(file, names);
+    if (specs.isEmpty()) {
+      for (String n : fileSpec.features.keySet()) specs.add(FeatureSpec.parse(n));
+      names.addAll(fileSpec.features.keySet());
+    }
+    return fileSpec;
+  }
+
+  /** The scoring unit: --unit when given, else the weights file's unit, else the model's, else the option's default. */
+  static Unit unit(boolean unitGiven, Unit option, WeightsSpec fileSpec, LanguageModel model) {
+    if (unitGiven) return option;
+    if (fileSpec.unit != null) return fileSpec.unit;
+    return model != null ? model.unit() : option;
+  }
+
+  /** Tokenisation for the model: {@code unitTokens} when the model shares unit and normalisation, else the model's own. */
+  static Tokenizer lmTokens(LanguageModel model, Unit unit, NormalisationOptions options, Tokenizer unitTokens) {
+    if (model == null || (model.unit() == unit && model.normalisation().equals(options))) return unitTokens;
+    Normaliser lmNorm = Normaliser.create(model.normalisation());
+    Unit lmUnit = model.unit();
+    return raw -> lmNorm.tokens(raw, lmUnit);
   }
 
   /** {@code o} reading exactly the feature columns {@code specs}. */
