@@ -59,8 +59,12 @@ public final class Posteriors {
     int n = s.size();
     double[] log = new double[n];
     for (int i = 0; i < n; i++) log[i] = post[i] > 0 ? Math.log(post[i]) + clamp(s.feature(i, feature)) : Double.NEGATIVE_INFINITY;
-    double norm = logSumExp(log, n);
-    for (int i = 0; i < n; i++) out[i] = Math.exp(log[i] - norm);
+    // Relative to the maximum, not via ln Σ: at magnitudes where ln 2 vanishes next to c, ties must stay ties.
+    double max = Double.NEGATIVE_INFINITY;
+    for (int i = 0; i < n; i++) if (log[i] > max) max = log[i];
+    double sum = 0;
+    for (int i = 0; i < n; i++) sum += (out[i] = Math.exp(log[i] - max));
+    for (int i = 0; i < n; i++) out[i] /= sum;
     return out;
   }
 
