@@ -104,6 +104,8 @@ public final class RescoreCommand implements Callable<Integer> {
     WeightsSpec fileSpec = RescoreSupport.readWeights(weightsFile, specs, names);
     RescoreWeights weights = fileSpec.overlay(weightOptions.spec(names)).resolve(names);
     LanguageModel model = loadModel(weights);
+    if (weights.voteConfidence() != null && !method.usesNetwork())
+      warn("--vote-confidence " + weights.voteConfidence() + " weighs only the consensus and lattice methods, not " + method.label());
     Unit unit = unit(fileSpec, model);
     if (fileSpec.unit != null && fileSpec.unit != unit)
       warn("the weights in " + weightsFile + " were tuned at unit " + label(fileSpec.unit) + "; this run uses " + label(unit));
