@@ -22,6 +22,7 @@ import steelyard.io.InputException;
       CompareCommand.class,
       LmCommand.class,
       RescoreCommand.class,
+      NetworkCommand.class,
       DemoDataCommand.class,
       CommandLine.HelpCommand.class
     })

@@ -4,6 +4,7 @@ import java.io.IOException;
 import java.io.Writer;
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.HashSet;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -11,10 +12,10 @@ import java.util.Map;
 import java.util.Set;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
-import picocli.CommandLine.Model.CommandSpec;
-import picocli.CommandLine.Spec;
 import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
 import steelyard.eval.Aligner;
 import steelyard.eval.Bootstrap;
 import steelyard.io.AtomicOutput;
@@ -25,7 +26,7 @@ import steelyard.io.InputException;
 import steelyard.io.Reference;
 import steelyard.io.ReferencesReader;
 import steelyard.lm.LanguageModel;
-import steelyard.lm.ModelFiles;
+import steelyard.report.OutputPaths;
 import steelyard.rescore.HypothesisScorer;
 import steelyard.rescore.ModelIdentity;
 import steelyard.rescore.NbestRescorer;
@@ -95,23 +96,20 @@ public final class RescoreCommand implements Callable<Integer> {
     if (maxHyps < 0) throw InputException.option("--max-hyps", "is " + maxHyps, "0 (all) or a positive number");
     if (run.threads < 0) throw InputException.option("--threads", "is " + run.threads, "0 (all cores) or a positive number");
     Path picks = out != null ? out : (json == null ? Path.of("-") : null);
-    java.util.Map<String, Path> outputs = new java.util.LinkedHashMap<>();
+    Map<String, Path> outputs = new LinkedHashMap<>();
     outputs.put("--out", picks);
     outputs.put("--breakdown", breakdown);
     outputs.put("--json", json);
     outputs.put("--save-weights", saveWeights);
-    steelyard.report.OutputPaths.refuseClashes(outputs, java.util.Arrays.asList(input.hyps, lm, refs, weightsFile, normalisation.rules));
+    OutputPaths.refuseClashes(outputs, Arrays.asList(input.hyps, lm, refs, weightsFile, normalisation.rules));
 
     List<FeatureSpec> specs = input.featureSpecs();
     List<String> names = new ArrayList<>();
-    for (FeatureSpec s : specs) names.add(s.name());
-    WeightsSpec fileSpec = weightsFile == null ? new WeightsSpec() : WeightsFile.read(weightsFile, names);
-    if (specs.isEmpty()) {
-      for (String n : fileSpec.features.keySet()) specs.add(FeatureSpec.parse(n));
-      names.addAll(fileSpec.features.keySet());
-    }
+    WeightsSpec fileSpec = RescoreSupport.readWeights(weightsFile, specs, names);
     RescoreWeights weights = fileSpec.overlay(weightOptions.spec(names)).resolve(names);
     LanguageModel model = loadModel(weights);
+    if (weights.voteConfidence() != null && !method.usesNetwork())
+      warn("--vote-confidence " + weights.voteConfidence() + " weighs only the consensus and lattice methods, not " + method.label());
     Unit unit = unit(fileSpec, model);
     if (fileSpec.unit != null && fileSpec.unit != unit)
       warn("the weights in " + weightsFile + " were tuned at unit " + label(fileSpec.unit) + "; this run uses " + label(unit));
@@ -121,13 +119,8 @@ public final class RescoreCommand implements Callable<Integer> {
 
     Normaliser scoring = Normaliser.create(normalisation.options());
     Tokenizer unitTokens = raw -> scoring.tokens(raw, unit);
-    Tokenizer lmTokens = unitTokens;
-    if (model != null && !(model.unit() == unit && model.normalisation().equals(normalisation.options()))) {
-      Normaliser lmNorm = Normaliser.create(model.normalisation());
-      Unit lmUnit = model.unit();
-      lmTokens = raw -> lmNorm.tokens(raw, lmUnit);
-      if (lmUnit != unit) warn("the model's unit is " + label(lmUnit) + ", the scoring unit " + label(unit));
-    }
+    Tokenizer lmTokens = RescoreSupport.lmTokens(model, unit, normalisation.options(), unitTokens);
+    if (model != null && model.unit() != unit) warn("the model's unit is " + label(model.unit()) + ", the scoring unit " + label(unit));
     ImportOptions importOptions = withFeatures(input.importOptions(), specs);
     Map<String, Reference> references = refs == null ? null : ReferencesReader.readAll(refs, importOptions);
 
@@ -172,20 +165,12 @@ public final class RescoreCommand implements Callable<Integer> {
 
   /** --unit when given, else the weights file's unit, else the model's, else words. */
   private Unit unit(WeightsSpec fileSpec, LanguageModel model) {
-    if (spec.commandLine().getParseResult().hasMatchedOption("--unit")) return normalisation.unit;
-    if (fileSpec.unit != null) return fileSpec.unit;
-    return model != null ? model.unit() : normalisation.unit;
+    return RescoreSupport.unit(spec.commandLine().getParseResult().hasMatchedOption("--unit"), normalisation.unit, fileSpec, model);
   }
 
   private LanguageModel loadModel(RescoreWeights w) {
     boolean needed = w.lmWeight() != 0 || w.oovWeight() != 0 || (method == RescoreMethod.LATTICE && w.latticeLmWeight() != 0);
-    if (lm == null) {
-      if (needed)
-        throw InputException.option("--lm", "no model given, but the LM weight, OOV weight or lattice LM weight is not 0",
-            "--lm FILE, or weights of 0");
-      return null;
-    }
-    return ModelFiles.load(lm);
+    return RescoreSupport.loadModel(lm, needed);
   }
 
   private void finish(RescoreSummary summary, RescoreWeights weights, Unit unit, ModelIdentity identity) throws IOException {
@@ -216,11 +201,11 @@ public final class RescoreCommand implements Callable<Integer> {
   }
 
   private static ImportOptions withFeatures(ImportOptions o, List<FeatureSpec> specs) {
-    return new ImportOptions(specs, o.primarySystem(), o.maxBadRows(), o.warnings(), o.skipped());
+    return RescoreSupport.withFeatures(o, specs);
   }
 
   private static String label(Unit u) {
-    return u == Unit.WORD ? "word" : "char";
+    return RescoreSupport.label(u);
   }
 
   private interface Body {

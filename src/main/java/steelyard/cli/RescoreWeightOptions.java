@@ -42,6 +42,10 @@ public final class RescoreWeightOptions {
   @Option(names = "--lattice-max-hyps", paramLabel = "N", description = "Cap on hypotheses entering one confusion network, by posterior.")
   Integer latticeMaxHyps;
 
+  @Option(names = "--vote-confidence", paramLabel = "NAME",
+      description = "Feature column (one of --features) whose natural-log confidence weighs each hypothesis's vote in consensus/lattice.")
+  String voteConfidence;
+
   /** The options as a partial weights spec; {@code --weight} names must be among {@code featureNames}. */
   WeightsSpec spec(List<String> featureNames) {
     WeightsSpec s = new WeightsSpec();
@@ -67,6 +71,10 @@ public final class RescoreWeightOptions {
     s.mbrMaxHypotheses = positive("--mbr-max-hyps", mbrMaxHyps);
     s.beam = positive("--beam", beam);
     s.latticeMaxHypotheses = positive("--lattice-max-hyps", latticeMaxHyps);
+    if (voteConfidence != null && !featureNames.contains(voteConfidence))
+      throw InputException.option("--vote-confidence", "unknown feature name '" + voteConfidence + "'",
+          "one of the --features columns: " + String.join(", ", featureNames));
+    s.voteConfidence = voteConfidence;
     return s;
   }
 

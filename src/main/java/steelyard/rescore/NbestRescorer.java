@@ -26,6 +26,7 @@ public final class NbestRescorer {
   private final LanguageModel lm;
   private final LogLinear weighting;
   private final ThreadLocal<EditDistance> distance;
+  private final int confidenceFeature;
 
   /**
    * @param lm       the model for the network search of {@link RescoreMethod#LATTICE}; may be null when λ′ = 0
@@ -40,6 +41,9 @@ public final class NbestRescorer {
     this.lm = lm;
     this.weighting = LogLinear.of(weights, this.featureNames);
     this.distance = ThreadLocal.withInitial(distance);
+    this.confidenceFeature = weights.voteConfidence() == null ? -1 : this.featureNames.indexOf(weights.voteConfidence());
+    if (weights.voteConfidence() != null && confidenceFeature < 0)
+      throw new IllegalArgumentException("vote confidence '" + weights.voteConfidence() + "' is not a feature");
   }
 
   public RescoreWeights weights() { return weights; }
@@ -56,7 +60,7 @@ public final class NbestRescorer {
   public UtteranceResult choose(ScoredUtterance s) {
     int n = s.size();
     double[] totals = weighting.totals(s, new double[n]);
-    double[] post = Posteriors.compute(s, totals, weights.posteriorScale(), systemWeights(s), new double[n]);
+    double[] post = posteriors(s, totals);
     switch (method) {
       case NBEST:
         return result(s, totals, post, LogLinear.best(s, totals), List.of(), null, null);
@@ -73,6 +77,17 @@ public final class NbestRescorer {
       default:
         throw new AssertionError(method);
     }
+  }
+
+  /**
+   * The posteriors this rescorer gives the hypotheses of {@code s} (totals from {@link #weighting}): the
+   * system-mixed softmax, and for the network methods with a vote confidence the confidence-weighted mass
+   * that enters the confusion network.
+   */
+  public double[] posteriors(ScoredUtterance s, double[] totals) {
+    double[] post = Posteriors.compute(s, totals, weights.posteriorScale(), systemWeights(s), new double[s.size()]);
+    if (confidenceFeature >= 0 && method.usesNetwork()) Posteriors.weighByConfidence(s, post, confidenceFeature, post);
+    return post;
   }
 
   /** The confusion-network choice over the kept hypotheses with their (system-mixed) posteriors. */

@@ -50,6 +50,24 @@ public final class Posteriors {
     return out;
   }
 
+  /**
+   * Confidence-weighted vote mass: {@code post[i] · exp(c_i)} renormalised to sum 1, where c_i is feature
+   * {@code feature} of hypothesis i, a natural-log confidence. Computed in log space, so confidences of any
+   * magnitude stay finite. Writes into {@code out} (may be {@code post}) and returns it.
+   */
+  public static double[] weighByConfidence(ScoredUtterance s, double[] post, int feature, double[] out) {
+    int n = s.size();
+    double[] log = new double[n];
+    for (int i = 0; i < n; i++) log[i] = post[i] > 0 ? Math.log(post[i]) + clamp(s.feature(i, feature)) : Double.NEGATIVE_INFINITY;
+    // Relative to the maximum, not via ln Σ: at magnitudes where ln 2 vanishes next to c, ties must stay ties.
+    double max = Double.NEGATIVE_INFINITY;
+    for (int i = 0; i < n; i++) if (log[i] > max) max = log[i];
+    double sum = 0;
+    for (int i = 0; i < n; i++) sum += (out[i] = Math.exp(log[i] - max));
+    for (int i = 0; i < n; i++) out[i] /= sum;
+    return out;
+  }
+
   /** Keeps α·total finite so that an overflow cannot turn the softmax into NaN. */
   private static double clamp(double v) {
     if (v > Double.MAX_VALUE / 4) return Double.MAX_VALUE / 4;

@@ -21,6 +21,9 @@ import steelyard.lattice.LatticeSettings;
  * @param latticeLengthWeight  μ′, per-token weight of the confusion-network search
  * @param beam                 states kept per slot in the confusion-network search
  * @param latticeMaxHypotheses cap on hypotheses (by posterior) entering one confusion network
+ * @param voteConfidence       feature column holding a natural-log confidence c per hypothesis, or null; when
+ *                             given, the network methods weigh each hypothesis's mass by exp(c) (see
+ *                             {@link Posteriors#weighByConfidence})
  */
 public record RescoreWeights(
     Map<String, Double> features,
@@ -33,7 +36,8 @@ public record RescoreWeights(
     double latticeLmWeight,
     double latticeLengthWeight,
     int beam,
-    int latticeMaxHypotheses) {
+    int latticeMaxHypotheses,
+    String voteConfidence) {
 
   public static final int DEFAULT_MBR_MAX_HYPOTHESES = 100;
 
@@ -44,6 +48,14 @@ public record RescoreWeights(
       throw new IllegalArgumentException("posterior scale must be finite and > 0: " + posteriorScale);
     if (mbrMaxHypotheses < 1 || beam < 1 || latticeMaxHypotheses < 1)
       throw new IllegalArgumentException("caps and beam must be >= 1");
+  }
+
+  /** Weights without a vote confidence. */
+  public RescoreWeights(Map<String, Double> features, double lmWeight, double oovWeight, double lengthWeight,
+      double posteriorScale, Map<String, Double> systemWeights, int mbrMaxHypotheses, double latticeLmWeight,
+      double latticeLengthWeight, int beam, int latticeMaxHypotheses) {
+    this(features, lmWeight, oovWeight, lengthWeight, posteriorScale, systemWeights, mbrMaxHypotheses, latticeLmWeight,
+        latticeLengthWeight, beam, latticeMaxHypotheses, null);
   }
 
   /** Weight 1 for every feature, everything else at its default. */

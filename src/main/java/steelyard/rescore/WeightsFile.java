@@ -35,7 +35,8 @@ import steelyard.text.Unit;
  *  "methods": {"nbest": {"features": {"acoustic": 1.0}, "lm_weight": 9.5, "oov_weight": 0.0,
  *                        "length_weight": -0.5, "posterior_scale": 0.1, "system_weights": {}},
  *              "mbr": {"max_hypotheses": 100},
- *              "lattice": {"lm_weight": 0.3, "length_weight": 0.0, "beam": 64, "max_hypotheses": 200}}}
+ *              "lattice": {"lm_weight": 0.3, "length_weight": 0.0, "beam": 64, "max_hypotheses": 200,
+ *                          "vote_confidence": null}}}
  * }</pre>
  */
 public final class WeightsFile {
@@ -133,6 +134,8 @@ public final class WeightsFile {
       number(g, "length_weight", s.latticeLengthWeight);
       integer(g, "beam", s.beam);
       integer(g, "max_hypotheses", s.latticeMaxHypotheses);
+      if (s.voteConfidence == null) g.writeNullField("vote_confidence");
+      else g.writeStringField("vote_confidence", s.voteConfidence);
       g.writeEndObject();
       g.writeEndObject();
       g.writeEndObject();

@@ -143,9 +143,19 @@ final class WeightsParser {
         case "length_weight": spec.latticeLengthWeight = number(); break;
         case "beam": spec.beam = integer(1); break;
         case "max_hypotheses": spec.latticeMaxHypotheses = integer(1); break;
-        default: throw unknownKey(key, "lm_weight, length_weight, beam, max_hypotheses");
+        case "vote_confidence": spec.voteConfidence = voteConfidence(); break;
+        default: throw unknownKey(key, "lm_weight, length_weight, beam, max_hypotheses, vote_confidence");
       }
     }
+  }
+
+  /** A feature column name or null; a name outside the run's --features is an error. */
+  private String voteConfidence() throws IOException {
+    if (p.currentToken() == JsonToken.VALUE_NULL) return null;
+    String name = string();
+    if (!knownFeatures.isEmpty() && !knownFeatures.contains(name))
+      throw fail("unknown vote confidence '" + name + "'", "one of the --features columns: " + String.join(", ", knownFeatures));
+    return name;
   }
 
   private void features() throws IOException {

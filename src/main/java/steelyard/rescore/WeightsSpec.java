@@ -4,6 +4,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.TreeMap;
+import steelyard.io.InputException;
 import steelyard.text.Unit;
 
 /**
@@ -25,6 +26,8 @@ public final class WeightsSpec {
   public Double latticeLengthWeight;
   public Integer beam;
   public Integer latticeMaxHypotheses;
+  /** Feature column whose value (natural-log confidence) weighs each hypothesis's vote in the networks; null: none. */
+  public String voteConfidence;
   /** The token unit the weights were tuned in; null when not recorded. */
   public Unit unit;
   /** The model the weights were tuned with; null when none or not recorded. */
@@ -46,6 +49,7 @@ public final class WeightsSpec {
     r.latticeLengthWeight = pick(top.latticeLengthWeight, latticeLengthWeight);
     r.beam = pick(top.beam, beam);
     r.latticeMaxHypotheses = pick(top.latticeMaxHypotheses, latticeMaxHypotheses);
+    r.voteConfidence = pick(top.voteConfidence, voteConfidence);
     r.unit = pick(top.unit, unit);
     r.model = pick(top.model, model);
     return r;
@@ -53,12 +57,16 @@ public final class WeightsSpec {
 
   /**
    * Fills every gap with its default: features listed in {@code featureNames} but not here weigh 1; the
-   * features map keeps the order of {@code featureNames}.
+   * features map keeps the order of {@code featureNames}. A vote confidence outside {@code featureNames} is an
+   * {@link InputException}.
    */
   public RescoreWeights resolve(List<String> featureNames) {
     RescoreWeights d = RescoreWeights.defaults(featureNames);
     Map<String, Double> f = new LinkedHashMap<>();
     for (String n : featureNames) f.put(n, features.getOrDefault(n, 1.0));
+    if (voteConfidence != null && !featureNames.contains(voteConfidence))
+      throw InputException.option("--vote-confidence", "unknown feature name '" + voteConfidence + "'",
+          "one of the --features columns: " + String.join(", ", featureNames));
     return new RescoreWeights(
         f,
         pick(lmWeight, d.lmWeight()),
@@ -70,7 +78,8 @@ public final class WeightsSpec {
         pick(latticeLmWeight, d.latticeLmWeight()),
         pick(latticeLengthWeight, d.latticeLengthWeight()),
         pick(beam, d.beam()),
-        pick(latticeMaxHypotheses, d.latticeMaxHypotheses()));
+        pick(latticeMaxHypotheses, d.latticeMaxHypotheses()),
+        voteConfidence);
   }
 
   /** A spec that states every value of {@code w} (for saving the weights in effect). */
@@ -87,6 +96,7 @@ public final class WeightsSpec {
     s.latticeLengthWeight = w.latticeLengthWeight();
     s.beam = w.beam();
     s.latticeMaxHypotheses = w.latticeMaxHypotheses();
+    s.voteConfidence = w.voteConfidence();
     s.unit = unit;
     s.model = model;
     return s;
