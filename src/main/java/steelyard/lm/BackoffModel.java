@@ -372,6 +372,31 @@ public final class BackoffModel implements LanguageModel {
       return e >= 0;
     }
 
+    /**
+     * Fast path of {@link #add} for callers that add n-grams parent first and know the parent's entry index:
+     * appends the listed n-gram (n-gram of entry {@code parentEntry} of order k−1) + {@code word} of order
+     * {@code k} and returns its entry index. One hash-table put; no prefix look-ups. Contract (checked by
+     * assertions only): 1 ≤ k ≤ order; {@code parentEntry} is −1 for k = 1, else an existing entry of order
+     * k−1; the n-gram is not stored yet. Under that contract the result equals {@link #add} of the full n-gram.
+     */
+    public int addChild(int k, int parentEntry, int word, double log10Probability, double log10BackoffWeight) {
+      if (built) throw new IllegalStateException("already built");
+      if (Double.isNaN(log10Probability)) throw new IllegalArgumentException("log10 probability is NaN");
+      int i = k - 1;
+      assert i >= 0 && i < order : "order " + k + " not in 1.." + order;
+      assert i == 0 ? parentEntry == -1 : parentEntry >= 0 && parentEntry < this.word[i - 1].size()
+          : "no entry " + parentEntry + " of order " + (k - 1);
+      int e = this.word[i].size();
+      int previous = index[i].put(key(parentEntry, word), e);
+      assert previous < 0 : "n-gram already stored as entry " + previous + " of order " + k;
+      parent[i].add(parentEntry);
+      this.word[i].add(word);
+      prob[i].add(log10Probability);
+      backoff[i].add(log10BackoffWeight);
+      cachedLength = 0;
+      return e;
+    }
+
     /** Whether an n-gram is listed (not merely a context). */
     public boolean contains(int[] ngram) {
       int p = -1;

@@ -271,9 +271,11 @@ final class Estimator {
   /**
    * Adds every listed n-gram to {@code builder}, whose token ids must equal the counting ids. N-grams go in
    * depth-first trie order (each unigram, then its listed extensions, …): with the trie numbering of
-   * {@link NgramCounts#freeze()} this reads every array front to back, and the builder's prefix look-ups of
-   * consecutive n-grams hit the same, already cached, table slots. Call once: it converts the working
-   * arrays to log10 in place and releases the counts.
+   * {@link NgramCounts#freeze()} this reads every array front to back. A kept entry's parent is always kept
+   * (see {@link #applyCutoffs()}) and is added just before its subtree, so the builder entry of every
+   * prefix is on the walk's stack ({@code entry[k]}) and each n-gram costs one
+   * {@link BackoffModel.Builder#addChild} (one hash-table put). Call once: it converts the working arrays to
+   * log10 in place and releases the counts.
    */
   void addTo(BackoffModel.Builder builder) {
     counts.releaseCountsAndSuffixes();
@@ -281,16 +283,15 @@ final class Estimator {
     toLog10();
     int[][] childStart = new int[order + 1][];
     for (int k = 1; k < order; k++) childStart[k + 1] = counts.childStarts(k);
-    int[] ids = new int[order];
-    int[][] buffers = new int[order + 1][];
-    for (int k = 1; k <= order; k++) buffers[k] = new int[k];
+    int[][] words = new int[order + 1][];
+    for (int k = 1; k <= order; k++) words[k] = counts.words(k);
+    int[] entry = new int[order + 1];
     int[] position = new int[order + 1];
     int[] end = new int[order + 1];
-    int[] unigramWords = counts.words(1);
     for (int u = 0; u < counts.size(1); u++) {
-      ids[0] = unigramWords[u];
-      add(builder, 1, u, ids, buffers[1]);
-      if (u == 0 && unkEntry < 0) builder.add(new int[] {unk}, Math.log10(unseenUnigram()), 0);
+      double lu = u == bosEntry ? START_LOG10 : prob[1][u];
+      entry[1] = builder.addChild(1, -1, words[1][u], lu, order > 1 ? bow[1][u] : 0);
+      if (u == 0 && unkEntry < 0) builder.addChild(1, -1, unk, Math.log10(unseenUnigram()), 0);
       if (order == 1) continue;
       int k = 2;
       position[2] = childStart[2][u];
@@ -302,8 +303,7 @@ final class Estimator {
         }
         int e = position[k]++;
         if (!keep[k][e]) continue;
-        ids[k - 1] = counts.words(k)[e];
-        add(builder, k, e, ids, buffers[k]);
+        entry[k] = builder.addChild(k, entry[k - 1], words[k][e], prob[k][e], k < order ? bow[k][e] : 0);
         if (k < order) {
           k++;
           position[k] = childStart[k][e];
@@ -323,14 +323,6 @@ final class Estimator {
         java.util.Arrays.parallelSetAll(b, i -> Math.log10(b[i]));
       }
     }
-  }
-
-  /** Adds entry e of order k; after {@link #toLog10()} the arrays hold log10 values. */
-  private void add(BackoffModel.Builder builder, int k, int e, int[] ids, int[] buffer) {
-    System.arraycopy(ids, 0, buffer, 0, k);
-    double lp = (k == 1 && e == bosEntry) ? START_LOG10 : prob[k][e];
-    double lb = k < order ? bow[k][e] : 0;
-    builder.add(buffer, lp, lb);
   }
 
   /** The customary log10 "probability" of {@code <s>}, which is never predicted. */
