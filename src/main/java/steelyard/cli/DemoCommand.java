@@ -13,6 +13,7 @@ import java.util.Locale;
 import java.util.concurrent.Callable;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import steelyard.io.InputException;
@@ -38,8 +39,7 @@ public final class DemoCommand implements Callable<Integer> {
       description = "Where the picks, summaries and breakdowns are written (default ${DEFAULT-VALUE}).")
   Path outDir;
 
-  @Option(names = "--threads", paramLabel = "N", defaultValue = "0", description = "Worker threads; 0 = all cores.")
-  int threads;
+  @Mixin RunInput run;
 
   /** One demo run: a label, its output stem and the rescore arguments that differ. */
   private record Part(String label, String stem, List<String> args) {}
@@ -93,7 +93,8 @@ public final class DemoCommand implements Callable<Integer> {
         "--out", outDir.resolve(p.stem() + ".picks.csv").toString(),
         "--json", outDir.resolve(p.stem() + ".summary.json").toString(),
         "--breakdown", outDir.resolve(p.stem() + ".breakdown.csv").toString(),
-        "--threads", Integer.toString(threads)));
+        "--threads", Integer.toString(run.threads),
+        "--seed", Long.toString(run.seed)));
     CommandLine cl = Main.commandLine();
     cl.setOut(spec.commandLine().getOut());
     // The rescore summary on stderr repeats what printSummary shows; keep only warnings, or all on failure.
