@@ -38,7 +38,7 @@ final class ShardedCounter implements AutoCloseable {
       shards[i] = new NgramCounts(order);
       queues[i] = new ArrayBlockingQueue<>(4);
       int shard = i;
-      workers[i] = new Thread(() -> work(shard), "ngram-count-" + i);
+      workers[i] = new Thread(() -> work(shard), "counting-shard-" + i);
       workers[i].setDaemon(true);
       workers[i].start();
     }
