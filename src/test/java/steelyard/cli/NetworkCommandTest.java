@@ -28,7 +28,6 @@ class NetworkCommandTest {
 
   @BeforeEach
   void files() throws IOException {
-    RescoreFixtures.assumeFoundationLanded(dir);
     hyps = dir.resolve("hyps.csv");
     Files.writeString(hyps, String.join("\n",
         "utt_id,rank,text,acoustic",

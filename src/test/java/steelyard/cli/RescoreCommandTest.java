@@ -4,17 +4,10 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
-import java.io.ByteArrayOutputStream;
 import java.io.IOException;
-import java.io.PrintStream;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.List;
-import java.util.Locale;
-import java.util.SplittableRandom;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Nested;
 import org.junit.jupiter.api.Test;
@@ -31,7 +24,6 @@ class RescoreCommandTest {
 
   @BeforeEach
   void files() throws IOException {
-    RescoreFixtures.assumeFoundationLanded(dir);
     hyps = dir.resolve("hyps.csv");
     refs = dir.resolve("refs.csv");
     RescoreFixtures.writeRandomSet(hyps, refs, 20261202L, 300);

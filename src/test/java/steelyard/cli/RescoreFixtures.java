@@ -1,6 +1,5 @@
 package steelyard.cli;
 
-import static org.junit.jupiter.api.Assumptions.assumeTrue;
 
 import com.opencsv.CSVReader;
 import java.io.ByteArrayOutputStream;
@@ -14,35 +13,10 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.SplittableRandom;
-import steelyard.eval.Aligner;
-import steelyard.io.AtomicOutput;
-import steelyard.io.HypothesesReader;
-import steelyard.io.ImportOptions;
-import steelyard.text.NormalisationOptions;
-import steelyard.text.Normaliser;
 
 /** Shared helpers of the command tests: in-process runs with captured streams, seeded data sets. */
 final class RescoreFixtures {
   private RescoreFixtures() {}
-
-  /** Skips when the importer, normaliser, aligner or atomic writer this command stands on is not built yet. */
-  static void assumeFoundationLanded(Path dir) {
-    boolean ok;
-    try {
-      Path p = dir.resolve("probe.csv");
-      Files.writeString(p, "utt_id,text\nu,a\n");
-      try (HypothesesReader r = HypothesesReader.open(p, ImportOptions.strict(List.of()))) {
-        r.hasNext();
-      }
-      Normaliser.create(NormalisationOptions.EXACT);
-      new Aligner().distance(new int[] {1}, new int[] {2});
-      AtomicOutput.writeText(dir.resolve("probe.out"), w -> w.write("x"));
-      ok = true;
-    } catch (UnsupportedOperationException | IOException e) {
-      ok = false;
-    }
-    assumeTrue(ok, "the importer, normaliser, aligner or atomic output is not built yet");
-  }
 
   static RescoreCommandTest.Result run(String... args) {
     PrintStream oldOut = System.out;

@@ -2,7 +2,6 @@ package steelyard.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
-import static org.junit.jupiter.api.Assumptions.assumeTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
@@ -15,9 +14,6 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
-import steelyard.lattice.LatticeSettings;
-import steelyard.lattice.Lattices;
-import steelyard.lm.ModelFiles;
 
 /** The command with a model file and with the confusion-network methods (skipped until those are built). */
 class RescoreModelAndNetworkTest {
@@ -27,21 +23,9 @@ class RescoreModelAndNetworkTest {
 
   @BeforeEach
   void files() throws IOException {
-    RescoreFixtures.assumeFoundationLanded(dir);
     hyps = dir.resolve("hyps.csv");
     refs = dir.resolve("refs.csv");
     RescoreFixtures.writeRandomSet(hyps, refs, 77L, 120);
-  }
-
-  private static void assumeNetworksBuilt() {
-    boolean ok;
-    try {
-      Lattices.consensus(List.of(List.of("a")), new double[] {1}, LatticeSettings.consensusOnly());
-      ok = true;
-    } catch (UnsupportedOperationException e) {
-      ok = false;
-    }
-    assumeTrue(ok, "the confusion-network methods are not built yet");
   }
 
   /**
@@ -54,14 +38,6 @@ class RescoreModelAndNetworkTest {
     Files.writeString(arpa, String.join("\n", "\\data\\", "ngram 1=6", "ngram 2=2", "", "\\1-grams:",
         "-99\t<s>\t0", "-1.0\t</s>", "-2.0\t<unk>", "-1.0\tten\t0", "-1.5\tcrates\t0", "-2.5\tcranes\t0", "",
         "\\2-grams:", "-0.5\t<s> ten", "-0.3\tten crates", "", "\\end\\", ""));
-    boolean loads;
-    try {
-      ModelFiles.load(arpa);
-      loads = true;
-    } catch (UnsupportedOperationException e) {
-      loads = false;
-    }
-    assumeTrue(loads, "model files are not built yet");
     Files.writeString(hyps, "utt_id,rank,text,acoustic\ndock-7,1,ten cranes,-9.0\ndock-7,2,ten crates,-10.0\ndock-7,3,ten crates please,-10.2\n");
     Path out = dir.resolve("p.csv");
     RescoreCommandTest.Result r = run("rescore", "--hyps", hyps.toString(), "--features", "acoustic", "--lm", arpa.toString(), "--lm-weight", "0.5",
@@ -84,7 +60,6 @@ class RescoreModelAndNetworkTest {
   @ParameterizedTest(name = "[{index}] {arguments}")
   @ValueSource(strings = {"consensus", "lattice"})
   void networkMethodsAreThreadCountIndependentAndReportTheLatticeOracle(String method) throws IOException {
-    assumeNetworksBuilt();
     byte[] first = null;
     byte[] firstJson = null;
     for (String threads : new String[] {"1", "2", "8"}) {

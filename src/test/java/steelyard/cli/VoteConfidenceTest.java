@@ -24,7 +24,6 @@ class VoteConfidenceTest {
    */
   @BeforeEach
   void files() throws IOException {
-    RescoreFixtures.assumeFoundationLanded(dir);
     hyps = dir.resolve("hyps.csv");
     Files.writeString(hyps, String.join("\n",
         "utt_id,system,rank,text,conf",

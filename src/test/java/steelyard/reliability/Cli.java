@@ -1,6 +1,5 @@
 package steelyard.reliability;
 
-import static org.junit.jupiter.api.Assumptions.assumeFalse;
 
 import java.io.ByteArrayOutputStream;
 import java.io.File;
@@ -39,10 +38,7 @@ final class Cli {
       return out;
     }
 
-    /**
-     * True when the command (or a part it calls) is still the skeleton's placeholder: it throws "not built
-     * yet", or it does not take the options of its issue yet (the placeholder has none).
-     */
+    /** True when the command (or a part it calls) throws the skeleton placeholder's "not built yet". */
     boolean notBuiltYet() {
       return exit == Main.INTERNAL && err.contains("not built yet");
     }
@@ -75,34 +71,20 @@ final class Cli {
     }
   }
 
-  /** Runs and skips the calling test (JUnit assumption) when the command is not built yet. */
+  /** Runs {@code args} and fails the calling test when the command answers as an unbuilt placeholder. */
   static Result runBuilt(String... args) {
     Result r = run(args);
-    assumeBuilt(r, args);
+    requireBuilt(r, args);
     return r;
   }
 
-  static void assumeBuilt(Result r, String... args) {
-    assumeFalse(r.notBuiltYet(), () -> "command '" + commandName(args) + "' (or a part it uses) not built yet: " + firstLine(r.err));
-    assumeFalse(r.exit() == Main.BAD_INPUT && r.err().startsWith("steelyard: Unknown option") && isPlaceholder(args),
-        () -> "command '" + commandName(args) + "' not built yet (it takes no options so far)");
-  }
-
   /**
-   * Whether the command named by the leading words of {@code args} is still the skeleton's placeholder: it has
-   * no options besides the standard help and version options. A built command that rejects an option is a
-   * real failure, never skipped.
+   * Fails (never skips) when a command or a part it calls still throws the skeleton's "not built yet": every
+   * command exists, so such an answer is a regression.
    */
-  static boolean isPlaceholder(String... args) {
-    picocli.CommandLine cl = Main.commandLine();
-    for (String a : args) {
-      if (a.startsWith("-")) break;
-      picocli.CommandLine sub = cl.getSubcommands().get(a);
-      if (sub == null) break;
-      cl = sub;
-    }
-    return cl.getCommandSpec().options().stream()
-        .allMatch(o -> o.usageHelp() || o.versionHelp());
+  static void requireBuilt(Result r, String... args) {
+    if (r.notBuiltYet())
+      throw new AssertionError("command '" + commandName(args) + "' (or a part it uses) answers 'not built yet': " + firstLine(r.err));
   }
 
   static String commandName(String... args) {

@@ -62,7 +62,7 @@ class CommandFuzzTest {
   void commandsEndWithZeroOrTwoNeverAnInternalError(Target t, @TempDir Path tmp) throws IOException {
     byte[] seed = Files.readAllBytes(Fixtures.badDir().resolve(t.mutated()));
     Path out = Files.createDirectories(tmp.resolve("out"));
-    Cli.assumeBuilt(Cli.run(args(t, Fixtures.badDir().resolve(t.mutated()), out, "nbest")), t.command().split(" "));
+    Cli.requireBuilt(Cli.run(args(t, Fixtures.badDir().resolve(t.mutated()), out, "nbest")), t.command().split(" "));
     String[] methods = {"nbest", "mbr", "consensus", "lattice"};
     List<String> failures = new ArrayList<>();
     for (int i = 0; i < t.cases() && failures.size() < 5; i++) {

@@ -45,7 +45,7 @@ class StrayWritesTest {
     List<String> args = new ArrayList<>();
     for (String a : template) args.add(a.replace("{in}", in.toString()).replace("{out}", out.toString()));
 
-    Cli.assumeBuilt(Cli.run(args.toArray(String[]::new)), args.toArray(String[]::new));
+    Cli.requireBuilt(Cli.run(args.toArray(String[]::new)), args.toArray(String[]::new));
     for (String o : outputs) deleteTree(out.resolve(o));
     Map<String, Long> parentBefore = Fixtures.listing(parent);
     parentBefore.remove("out");
