@@ -23,7 +23,7 @@ import steelyard.io.Reference;
 import steelyard.io.ReferencesReader;
 import steelyard.io.SkippedRow;
 import steelyard.report.CompareReport;
-import steelyard.report.JsonOutput;
+import steelyard.io.JsonOutput;
 import steelyard.report.OutputPaths;
 import steelyard.text.Normaliser;
 import steelyard.text.Unit;

@@ -26,7 +26,7 @@ import steelyard.io.ImportOptions;
 import steelyard.io.InputException;
 import steelyard.io.Reference;
 import steelyard.io.ReferencesReader;
-import steelyard.report.JsonOutput;
+import steelyard.io.JsonOutput;
 import steelyard.report.OutputPaths;
 import steelyard.report.ScoreContext;
 import steelyard.report.ScoreReport;
@@ -52,6 +52,7 @@ public final class ScoreCommand implements Callable<Integer> {
   @Mixin HypothesesInput hypotheses;
   @Mixin NormalisationInput normalisation;
   @Mixin RunInput run;
+  @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
   @Option(names = "--refs", required = true, paramLabel = "FILE", description = "References CSV (utt_id,text[,group]; .gz accepted).")
   Path refs;
@@ -94,7 +95,7 @@ public final class ScoreCommand implements Callable<Integer> {
     OutputPaths.refuseClashes(outputs, Arrays.asList(hypotheses.hyps, refs, normalisation.rules));
 
     List<String> warnings = new ArrayList<>();
-    ImportOptions options = collecting(hypotheses.importOptions(), warnings);
+    ImportOptions options = collecting(hypotheses.importOptions(spec.commandLine().getErr()), warnings);
     Normaliser normaliser = Normaliser.create(normalisation.options());
     Unit unit = normalisation.unit;
     LinkedHashMap<String, Reference> refMap = ReferencesReader.readAll(refs, withoutFeatures(options));

@@ -12,6 +12,7 @@ import steelyard.eval.GroupScore;
 import steelyard.eval.MissingHypothesisPolicy;
 import steelyard.eval.TokenTally;
 import steelyard.eval.UtteranceScores;
+import steelyard.io.JsonOutput;
 import steelyard.io.SkippedRow;
 import steelyard.text.RuleUsage;
 
