@@ -19,6 +19,7 @@ import steelyard.lm.CompactModel;
 import steelyard.lm.LanguageModel;
 import steelyard.lm.LoadProgress;
 import steelyard.lm.ModelFiles;
+import steelyard.lm.ModelText;
 import steelyard.text.NormalisationOptions;
 import steelyard.text.Normaliser;
 import steelyard.text.Unit;
@@ -51,8 +52,9 @@ public final class LmModelInput {
   }
 
   /**
-   * The tokenizer for held-out text: the model's recorded unit and normalisation (plus the user's rules file,
-   * which a model cannot record); a warning when the user's own normalisation options differ from the model's.
+   * The tokenizer for held-out text, by the one rule of {@link ModelText} (the model's recorded unit and
+   * normalisation plus the user's rules file); a warning when the user's own normalisation options differ from
+   * the model's.
    */
   static Function<String, List<String>> tokenizer(LanguageModel lm, NormalisationInput user, CommandLine.ParseResult parsed, PrintWriter err) {
     NormalisationOptions mine = user.options();
@@ -68,9 +70,7 @@ public final class LmModelInput {
           + ") differ from the model's (" + lm.unit().name().toLowerCase(java.util.Locale.ROOT) + ", " + LmInfoCommand.describe(model)
           + "); the text is normalised as the model was trained");
     }
-    NormalisationOptions used = new NormalisationOptions(model.foldCase(), model.stripPunctuation(), model.splitHyphens(),
-        model.ignoreWhitespace(), user.rules != null ? user.rules : model.rulesFile());
-    Normaliser normaliser = Normaliser.create(used);
+    Normaliser normaliser = ModelText.normaliser(lm, user.rules);
     Unit unit = lm.unit();
     return raw -> normaliser.tokenList(raw, unit);
   }

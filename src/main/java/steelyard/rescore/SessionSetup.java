@@ -9,6 +9,7 @@ import steelyard.io.ImportOptions;
 import steelyard.io.InputException;
 import steelyard.lm.LanguageModel;
 import steelyard.lm.ModelFiles;
+import steelyard.lm.ModelText;
 import steelyard.text.Normaliser;
 import steelyard.text.Unit;
 
@@ -113,10 +114,13 @@ final class SessionSetup {
     }, o.progress()));
   }
 
-  /** Tokenisation for the model: {@code unitTokens} when the model shares unit and normalisation, else the model's own. */
+  /**
+   * Tokenisation for the model by the one rule of {@link ModelText} (the user's rules file applies to the model's
+   * text too): {@code unitTokens} when that gives the same tokens, else the model's own.
+   */
   private static Tokenizer lmTokens(LanguageModel model, Unit unit, RescoreConfig c, Tokenizer unitTokens) {
-    if (model == null || (model.unit() == unit && model.normalisation().equals(c.normalisation()))) return unitTokens;
-    Normaliser lmNorm = Normaliser.create(model.normalisation());
+    if (model == null || ModelText.sameAsScoring(model, c.normalisation(), unit)) return unitTokens;
+    Normaliser lmNorm = ModelText.normaliser(model, c.normalisation().rulesFile());
     Unit lmUnit = model.unit();
     return raw -> lmNorm.tokens(raw, lmUnit);
   }
