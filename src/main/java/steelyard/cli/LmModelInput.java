@@ -6,12 +6,10 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.function.Function;
-import me.tongfei.progressbar.ConsoleProgressBarConsumer;
 import me.tongfei.progressbar.ProgressBar;
 import me.tongfei.progressbar.ProgressBarBuilder;
 import picocli.CommandLine;
 import picocli.CommandLine.Option;
-import steelyard.io.AtomicOutput;
 import steelyard.io.InputException;
 import steelyard.io.InputFiles;
 import steelyard.lm.BackoffModel;
@@ -47,8 +45,7 @@ public final class LmModelInput {
   }
 
   private ModelFiles.LoadOptions options(PrintWriter err) {
-    boolean show = progress || System.console() != null;
-    return new ModelFiles.LoadOptions(unknownLog10, w -> warn(err, w), show ? new Bar() : null);
+    return new ModelFiles.LoadOptions(unknownLog10, w -> warn(err, w), ConsoleProgress.wanted(progress) ? new Bar(err) : null);
   }
 
   /**
@@ -97,19 +94,19 @@ public final class LmModelInput {
     err.flush();
   }
 
-  /** Writes UTF-8 text atomically to {@code target}, or to stdout when it is {@code -}. */
-  static void writeText(Path target, AtomicOutput.WriterBody body) {
-    AtomicOutput.writeText(target, body);
-  }
-
-  /** Progress on stderr. */
+  /** Progress on the command's stderr. */
   private static final class Bar implements LoadProgress {
+    private final PrintWriter err;
     private ProgressBar bar;
+
+    Bar(PrintWriter err) {
+      this.err = err;
+    }
 
     @Override
     public void start(long total) {
       bar = new ProgressBarBuilder().setTaskName("reading n-grams").setInitialMax(total)
-          .setConsumer(new ConsoleProgressBarConsumer(System.err)).setUpdateIntervalMillis(250).build();
+          .setConsumer(new ConsoleProgress(err)).setUpdateIntervalMillis(250).build();
     }
 
     @Override

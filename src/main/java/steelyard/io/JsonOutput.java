@@ -52,6 +52,11 @@ public final class JsonOutput {
     return new DefaultPrettyPrinter().withObjectIndenter(indenter).withArrayIndenter(indenter);
   }
 
+  /** Any value Jackson can serialise (maps, lists, records, arrays) as a tree in this set-up. */
+  public static JsonNode tree(Object value) {
+    return MAPPER.valueToTree(value);
+  }
+
   /** The rendered document, ending with a newline. */
   public static String render(JsonNode node) {
     try {

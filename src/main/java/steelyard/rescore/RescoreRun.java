@@ -11,6 +11,7 @@ import java.util.List;
 import java.util.Map;
 import steelyard.eval.Bootstrap;
 import steelyard.io.AtomicOutput;
+import steelyard.io.CsvWriter;
 import steelyard.io.JsonOutput;
 import steelyard.io.Reference;
 import steelyard.io.SkippedRow;
@@ -59,16 +60,20 @@ public final class RescoreRun {
     RescoreSummary[] summary = new RescoreSummary[1];
     try {
       write(outputs.picks(), stdout, pw -> write(outputs.breakdown(), stdout, bw -> {
-        writer.picksHeader(pw);
-        if (outputs.breakdown() != null) writer.breakdownHeader(bw);
+        CsvWriter picks = CsvWriter.plain(pw);
+        CsvWriter breakdown = CsvWriter.plain(bw);
+        writer.picksHeader(picks);
+        if (outputs.breakdown() != null) writer.breakdownHeader(breakdown);
         try {
           summary[0] = session.run(hyps, references, threads, o -> {
-            writer.pick(pw, o.result());
-            if (outputs.breakdown() != null) writer.breakdown(bw, o.result());
+            writer.pick(picks, o.result());
+            if (outputs.breakdown() != null) writer.breakdown(breakdown, o.result());
           });
         } catch (UncheckedIOException e) {
           throw e.getCause();
         }
+        picks.flush();
+        breakdown.flush();
       }));
     } catch (IOException e) {
       throw new UncheckedIOException(e);
@@ -96,7 +101,7 @@ public final class RescoreRun {
     WeightsSpec effective = WeightsSpec.of(session.weights(), session.unit(), identify ? session.modelIdentity() : null);
     node.set("weights", JsonOutput.parse(WeightsFile.toJson(effective)));
     if (outputs.json() != null) JsonOutput.write(outputs.json(), node, stdout);
-    if (outputs.saveWeights() != null) WeightsFile.save(outputs.saveWeights(), effective);
+    if (outputs.saveWeights() != null) WeightsFile.save(outputs.saveWeights(), effective, stdout);
     return new Result(summary, ci, node, warnings);
   }
 

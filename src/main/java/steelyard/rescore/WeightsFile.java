@@ -77,9 +77,14 @@ public final class WeightsFile {
     }
   }
 
-  /** Writes {@code spec} atomically to {@code target} ({@code -} for stdout). */
+  /** Writes {@code spec} atomically to {@code target} ({@code -} for the process's stdout). */
   public static void save(Path target, WeightsSpec spec) {
     AtomicOutput.writeText(target, out -> write(out, spec));
+  }
+
+  /** Writes {@code spec} atomically to {@code target}; {@code -} writes to {@code stdout}. */
+  public static void save(Path target, WeightsSpec spec, java.io.Writer stdout) {
+    AtomicOutput.writeText(target, stdout, out -> write(out, spec));
   }
 
   /** The JSON text of {@code spec}: fixed key order, LF line ends, so equal weights give equal bytes. */
