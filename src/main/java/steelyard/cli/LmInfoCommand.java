@@ -20,17 +20,17 @@ public final class LmInfoCommand implements Callable<Integer> {
   @Spec picocli.CommandLine.Model.CommandSpec spec;
   @Mixin LmModelInput input;
 
-  @Option(names = "--json", paramLabel = "FILE", description = "Also write the description as JSON to FILE ('-' = stdout, instead of the text form).")
-  Path json;
+  @Mixin JsonOutputOption json;
 
   @Override
   public Integer call() {
-    if (json != null) steelyard.io.AtomicOutput.refuseOverwritingInput(json, input.lm);
+    input.require();
+    if (json.file != null) steelyard.io.AtomicOutput.refuseOverwritingInput(json.file, input.lm);
     CompactModel lm = input.load(spec.commandLine().getErr());
     ObjectNode o = describe(lm, input.lm);
-    if (json != null) {
-      JsonOutput.write(json, o, spec.commandLine().getOut());
-      if (json.toString().equals("-")) return 0;
+    if (json.file != null) {
+      json.write(o, spec.commandLine().getOut());
+      if (json.toStdout()) return 0;
     }
     StringBuilder sb = new StringBuilder();
     sb.append("model            ").append(input.lm).append('\n');
