@@ -85,7 +85,7 @@ public final class RescoreCommand implements Callable<Integer> {
     session.warnings().forEach(w -> RescoreSupport.warn(err, w));
     RescoreRun.Result result = RescoreRun.run(session, input.hyps, references.refs, new RescoreRun.Outputs(picks, breakdown, json.file, saveWeights),
         run.effectiveThreads(), run.seed, input.skipped(), spec.commandLine().getOut());
-    RescoreSupport.printSummary(err, result.summary(), session.method(), references.refs != null);
+    RescoreSupport.printSummary(err, result, session.method());
     return Main.OK;
   }
 }
