@@ -73,8 +73,8 @@ public final class AuditAccumulator {
   public AuditReport finish() {
     List<AuditCounts> perGroup = new ArrayList<>(groups.size());
     for (Map.Entry<String, Tally> e : groups.entrySet()) perGroup.add(e.getValue().counts(e.getKey(), settings.topPairs()));
-    return new AuditReport(method, settings.unit(), utterances, verified, referenceTokens, firstErrors, chosenErrors,
-        total.counts(null, settings.topPairs()), perGroup, overrules);
+    return new AuditReport(method, settings.unit(), settings.featureNames(), utterances, verified, referenceTokens,
+        firstErrors, chosenErrors, total.counts(null, settings.topPairs()), perGroup, overrules);
   }
 
   /** Counts and token pairs of one set of overrules. */

@@ -11,6 +11,7 @@ import steelyard.text.Unit;
  *
  * @param method            the rescoring method (null when no utterance was audited)
  * @param unit              the scoring unit
+ * @param featureNames      the selected features, in the order of the breakdowns' feature terms
  * @param utterances        utterances audited
  * @param verifiedUtterances utterances with a reference
  * @param referenceTokens   reference tokens of those (optional tokens excluded)
@@ -21,12 +22,14 @@ import steelyard.text.Unit;
  * @param overrules         every overrule, in input order
  */
 public record AuditReport(
-    RescoreMethod method, Unit unit, long utterances, long verifiedUtterances, long referenceTokens, long firstErrors,
-    long chosenErrors, AuditCounts total, List<AuditCounts> groups, List<Overrule> overrules) {
+    RescoreMethod method, Unit unit, List<String> featureNames, long utterances, long verifiedUtterances,
+    long referenceTokens, long firstErrors, long chosenErrors, AuditCounts total, List<AuditCounts> groups,
+    List<Overrule> overrules) {
   /** Said with every audit: an automatic pick is a statistical choice. */
   public static final String NOTICE = steelyard.rescore.RescoreSummary.NOTICE;
 
   public AuditReport {
+    featureNames = List.copyOf(featureNames);
     groups = List.copyOf(groups);
     overrules = List.copyOf(overrules);
   }
