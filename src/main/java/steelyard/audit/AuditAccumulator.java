@@ -59,20 +59,16 @@ public final class AuditAccumulator {
     UtteranceResult r = in.result();
     ScoredUtterance s = r.scores();
     int first = s.firstIndex();
-    long fe = errors.count(s, ref, s.tokenIds()[first], s.tokens(first).optional());
+    long fe = errors.count(s, ref, first, null);
     firstErrors += fe;
-    if (r.isNewTranscript()) {
-      List<String> t = r.newTokens();
-      chosenErrors += errors.count(s, ref, s.idsOf(t), new boolean[t.size()]);
-    } else {
-      chosenErrors += r.chosen() == first ? fe : errors.count(s, ref, s.tokenIds()[r.chosen()], s.tokens(r.chosen()).optional());
-    }
+    chosenErrors += r.chosen() == first ? fe : errors.count(s, ref, r.chosen(), r.newTokens());
   }
 
   /** The report of everything added so far. */
   public AuditReport finish() {
     List<AuditCounts> perGroup = new ArrayList<>(groups.size());
-    for (Map.Entry<String, Tally> e : groups.entrySet()) perGroup.add(e.getValue().counts(e.getKey(), settings.topPairs()));
+    for (Map.Entry<String, Tally> e : groups.entrySet())
+      perGroup.add(e.getValue().counts(e.getKey(), settings.topPairs()));
     return new AuditReport(method, settings.unit(), settings.featureNames(), utterances, verified, referenceTokens,
         firstErrors, chosenErrors, total.counts(null, settings.topPairs()), perGroup, overrules);
   }
@@ -95,7 +91,8 @@ public final class AuditAccumulator {
 
     AuditCounts counts(String group, int top) {
       return new AuditCounts(group, overrules, verdicts[Verdict.HELPED.ordinal()], verdicts[Verdict.HURT.ordinal()],
-          verdicts[Verdict.NEUTRAL.ordinal()], verdicts[Verdict.UNVERIFIED.ordinal()], net, top(fixed, top), top(broken, top));
+          verdicts[Verdict.NEUTRAL.ordinal()], verdicts[Verdict.UNVERIFIED.ordinal()], net, top(fixed, top),
+          top(broken, top));
     }
 
     private static List<TokenTally> top(Object2LongOpenHashMap<TokenTally> pairs, int k) {

@@ -38,7 +38,8 @@ public record AuditSettings(
   }
 
   /** Settings with the default pool size and pair-list length. */
-  public static AuditSettings of(List<String> featureNames, Unit unit, LanguageModel lm, Tokenizer lmTokens, LatticeSettings network) {
+  public static AuditSettings of(
+      List<String> featureNames, Unit unit, LanguageModel lm, Tokenizer lmTokens, LatticeSettings network) {
     return new AuditSettings(featureNames, unit, lm, lmTokens, network, DEFAULT_POOL_SIZE, DEFAULT_TOP_PAIRS);
   }
 }

@@ -22,11 +22,13 @@ final class Breakdowns {
       terms.add(term(Kind.FEATURE, featureNames.get(t), s.feature(pick, t), s.feature(first, t), r, t, pick, first));
     terms.add(term(Kind.LM, "lm", s.lmLogProb(pick), s.lmLogProb(first), r, f + LogLinear.LM_TERM, pick, first));
     terms.add(term(Kind.OOV, "oov", s.oovCount(pick), s.oovCount(first), r, f + LogLinear.OOV_TERM, pick, first));
-    terms.add(term(Kind.LENGTH, "length", s.tokenCount(pick), s.tokenCount(first), r, f + LogLinear.LENGTH_TERM, pick, first));
+    terms.add(term(Kind.LENGTH, "length", s.tokenCount(pick), s.tokenCount(first), r, f + LogLinear.LENGTH_TERM, pick,
+        first));
     return new ScoreBreakdown(terms, r.totals()[pick], r.totals()[first]);
   }
 
-  private static Term term(Kind kind, String name, double pv, double fv, UtteranceResult r, int t, int pick, int first) {
+  private static Term term(
+      Kind kind, String name, double pv, double fv, UtteranceResult r, int t, int pick, int first) {
     LogLinear w = r.weighting();
     return new Term(kind, name, pv, fv, w.term(r.scores(), pick, t), w.term(r.scores(), first, t));
   }
@@ -52,13 +54,15 @@ final class Breakdowns {
       tie[i] = s.tieOrder(i);
       tokens.add(s.tokens(i).tokens());
     }
-    return FlipFinder.find(FlipWeights.Basis.EXACT, a, b, tie, tokens, w.lmWeight(), r.chosenTokens(), s.tokens(first).tokens());
+    return FlipFinder.find(FlipWeights.Basis.EXACT, a, b, tie, tokens, w.lmWeight(), r.chosenTokens(),
+        s.tokens(first).tokens());
   }
 
   private static int featureCount(LogLinear w, List<String> names) {
     int f = w.termCount() - 3;
     if (f != names.size())
-      throw new IllegalArgumentException("the weighting has " + f + " feature terms but " + names.size() + " feature names: " + names);
+      throw new IllegalArgumentException(
+          "the weighting has " + f + " feature terms but " + names.size() + " feature names: " + names);
     return f;
   }
 }

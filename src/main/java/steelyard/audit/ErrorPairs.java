@@ -20,7 +20,8 @@ import steelyard.text.TokenSequence;
 final class ErrorPairs {
   /** Most frequent first; ties by reference text, then hypothesis text. */
   static final Comparator<TokenTally> ORDER =
-      Comparator.comparingLong(TokenTally::count).reversed().thenComparing(TokenTally::ref).thenComparing(TokenTally::hyp);
+      Comparator.comparingLong(TokenTally::count).reversed().thenComparing(TokenTally::ref)
+          .thenComparing(TokenTally::hyp);
 
   private final Aligner aligner = new Aligner();
 
@@ -32,7 +33,7 @@ final class ErrorPairs {
 
   /** Errors of kept hypothesis {@code i} of {@code s} against {@code ref}. */
   Errors of(ScoredUtterance s, TokenSequence ref, int i) {
-    return of(s, ref, s.tokens(i).tokens(), s.tokenIds()[i], s.tokens(i).optional());
+    return of(s, ref, s.tokens(i).tokens(), s.idsOf(s.tokens(i).tokens()), s.tokens(i).optional());
   }
 
   /** Errors of new tokens (a network path: nothing optional) against {@code ref}. */
@@ -40,9 +41,15 @@ final class ErrorPairs {
     return of(s, ref, tokens, s.idsOf(tokens), new boolean[tokens.size()]);
   }
 
-  /** Error count only (no pairs), for utterances that are not overrules. */
-  long count(ScoredUtterance s, TokenSequence ref, int[] hypIds, boolean[] hypOptional) {
-    return aligner.count(s.idsOf(ref.tokens()), ref.optional(), hypIds, hypOptional).errors();
+  /**
+   * Error count only (no pairs) of kept hypothesis {@code i}, or of {@code newTokens} when {@code i} is −1, for
+   * utterances that are not overrules. Token ids come from the utterance's local vocabulary for just these tokens
+   * ({@link ScoredUtterance#idsOf}), so the other hypotheses are never converted.
+   */
+  long count(ScoredUtterance s, TokenSequence ref, int i, List<String> newTokens) {
+    List<String> hyp = i < 0 ? newTokens : s.tokens(i).tokens();
+    boolean[] optional = i < 0 ? new boolean[hyp.size()] : s.tokens(i).optional();
+    return aligner.count(s.idsOf(ref.tokens()), ref.optional(), s.idsOf(hyp), optional).errors();
   }
 
   private Errors of(ScoredUtterance s, TokenSequence ref, List<String> hyp, int[] hypIds, boolean[] hypOptional) {

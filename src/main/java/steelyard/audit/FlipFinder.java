@@ -31,16 +31,21 @@ final class FlipFinder {
     List<String> below = lo > 0 ? winnerTokens(env, tokens, lo - 1) : null;
     List<String> above = hi + 1 < env.segments() ? winnerTokens(env, tokens, hi + 1) : null;
     double[] back = nearestRun(env, tokens, first, lo, hi, weight);
-    return new FlipWeights(basis, weight, env.start(lo), env.end(hi), below, above, back[0], back[1], intercepts.length);
+    return new FlipWeights(
+        basis, weight, env.start(lo), env.end(hi), below, above, back[0], back[1], intercepts.length);
   }
 
-  /** The segment at {@code weight} when the pick wins it, else a neighbour it wins when {@code weight} is on their breakpoint. */
+  /**
+   * The segment at {@code weight} when the pick wins it, else a neighbour it wins when {@code weight} lies on their
+   * breakpoint; −1 when neither.
+   */
   private static int pickSegment(LineEnvelope env, List<List<String>> tokens, double weight, List<String> pick) {
     int k = env.segmentAt(weight);
     if (winnerTokens(env, tokens, k).equals(pick)) return k;
     double tol = ON_BREAKPOINT * Math.max(1, Math.abs(weight));
     if (k > 0 && weight - env.start(k) <= tol && winnerTokens(env, tokens, k - 1).equals(pick)) return k - 1;
-    if (k + 1 < env.segments() && env.end(k) - weight <= tol && winnerTokens(env, tokens, k + 1).equals(pick)) return k + 1;
+    boolean next = k + 1 < env.segments() && env.end(k) - weight <= tol;
+    if (next && winnerTokens(env, tokens, k + 1).equals(pick)) return k + 1;
     return -1;
   }
 

@@ -36,7 +36,7 @@ public record FlipWeights(
     return !Double.isNaN(firstLow);
   }
 
-  /** The weight nearest the current one at which rank 1's transcript is picked again (an interval edge); NaN when never. */
+  /** The weight nearest the current one at which rank 1's transcript is picked again (an edge); NaN when never. */
   public double returnWeight() {
     if (!returnsToFirst()) return Double.NaN;
     return firstHigh <= weight ? firstHigh : firstLow;

@@ -27,7 +27,8 @@ final class NetworkAudit {
 
   NetworkAudit(AuditSettings audit, UtteranceResult r) {
     LatticeSettings given = audit.network();
-    if (given == null) throw new IllegalArgumentException("the " + r.method().label() + " method needs the network settings");
+    if (given == null)
+      throw new IllegalArgumentException("the " + r.method().label() + " method needs the network settings");
     this.r = r;
     this.lm = audit.lm();
     this.settings = r.method() == RescoreMethod.CONSENSUS
@@ -42,14 +43,15 @@ final class NetworkAudit {
     LatticeChoice c = r.lattice();
     PathTerms pick = new PathTerms(c.logPosterior(), lmLogProb(c.tokens()), c.tokenCount());
     int k = enteredPath(first);
-    PathTerms rank1 = k < 0 ? null : new PathTerms(pathLogPosterior(k), lmLogProb(hypotheses.get(first)), hypotheses.get(first).size());
+    List<String> own = hypotheses.get(first);
+    PathTerms rank1 = k < 0 ? null : new PathTerms(pathLogPosterior(k), lmLogProb(own), own.size());
     return new PathComparison(settings.lmWeight(), settings.lengthWeight(), pick, rank1);
   }
 
   /**
-   * Flip weights along λ′ (μ′ held) over the pool: the chosen path, the {@code k} best paths of a re-search at the
-   * run's weights, and rank 1's own path; each is the line Σ ln posterior + μ′·tokens + λ′·ln P_LM. Null without
-   * a model.
+   * Flip weights along λ′ (μ′ held) over the pool: the chosen path, the {@code k} best paths of a re-search at
+   * the run's weights, and rank 1's own path; each is the line Σ ln posterior + μ′·tokens + λ′·ln P_LM. Null
+   * without a model.
    */
   FlipWeights poolFlip(int first, int k) {
     if (lm == null) return null;
@@ -69,7 +71,8 @@ final class NetworkAudit {
   }
 
   /** Adds a path's line unless it is not finite (an arc of posterior 0 on rank 1's own path). */
-  private void addLine(List<List<String>> tokens, DoubleArrayList a, DoubleArrayList b, List<String> path, double logPosterior) {
+  private void addLine(
+      List<List<String>> tokens, DoubleArrayList a, DoubleArrayList b, List<String> path, double logPosterior) {
     double intercept = logPosterior + settings.lengthWeight() * path.size();
     double slope = lmLogProb(path);
     if (!Double.isFinite(intercept) || !Double.isFinite(slope)) return;
@@ -78,7 +81,7 @@ final class NetworkAudit {
     b.add(slope);
   }
 
-  /** Entry number of rank 1's path in the network, else of an entered hypothesis with the same tokens; −1 when none entered. */
+  /** Entry number of rank 1's path, else of an entered hypothesis with the same tokens; −1 when none entered. */
   private int enteredPath(int first) {
     int k = net.enteredIndexOf(first);
     for (int e = 0; k < 0 && e < net.enteredCount(); e++)
@@ -92,7 +95,7 @@ final class NetworkAudit {
     return sum;
   }
 
-  /** ln P_LM of network tokens as the search scores them (the tokens go to the model as they are); 0 without a model. */
+  /** ln P_LM of network tokens as the search scores them (each token goes to the model as it is); 0 without one. */
   private double lmLogProb(List<String> tokens) {
     return lm == null ? 0 : lm.sentenceLogProb(tokens);
   }

@@ -71,7 +71,8 @@ public final class OverruleAuditor {
     Verdict verdict = ref == null ? Verdict.UNVERIFIED : Verdict.of(fe.errors(), pe.errors());
     List<TokenTally> fixed = ref == null ? List.of() : ErrorPairs.minus(fe, pe);
     List<TokenTally> broken = ref == null ? List.of() : ErrorPairs.minus(pe, fe);
-    ScoreBreakdown breakdown = r.isNewTranscript() ? null : Breakdowns.of(r, settings.featureNames(), r.chosen(), first);
+    ScoreBreakdown breakdown =
+        r.isNewTranscript() ? null : Breakdowns.of(r, settings.featureNames(), r.chosen(), first);
     NetworkAudit net = r.method().usesNetwork() ? new NetworkAudit(settings, r) : null;
     return new Overrule(r.uttId(), in.effectiveGroup(), r.method(), verdict, pickSide(r, pe), side(s, first, fe),
         ref == null ? null : Normaliser.join(ref.tokens(), settings.unit()), fixed, broken, breakdown,

@@ -48,7 +48,8 @@ public record ScoreBreakdown(List<Term> terms, double pickTotal, double firstTot
    * @param pickWeighted  the weighted term of the pick
    * @param firstWeighted the weighted term of rank 1
    */
-  public record Term(Kind kind, String name, double pickValue, double firstValue, double pickWeighted, double firstWeighted) {
+  public record Term(
+      Kind kind, String name, double pickValue, double firstValue, double pickWeighted, double firstWeighted) {
     /** Weighted pick − weighted rank 1. */
     public double delta() {
       return pickWeighted - firstWeighted;

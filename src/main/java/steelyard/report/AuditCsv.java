@@ -49,8 +49,8 @@ public final class AuditCsv {
   private static String[] row(Overrule o, int features) {
     List<String> c = new ArrayList<>(30 + features);
     c.addAll(List.of(o.uttId(), o.group(), o.method().label(), o.verdict().label(), Long.toString(o.errorChange()),
-        errors(o.first()), errors(o.pick()), o.first().text(), o.pick().text(), Boolean.toString(o.pick().isNewTranscript()),
-        o.reference() == null ? "" : o.reference()));
+        errors(o.first()), errors(o.pick()), o.first().text(), o.pick().text(),
+        Boolean.toString(o.pick().isNewTranscript()), o.reference() == null ? "" : o.reference()));
     ScoreBreakdown b = o.breakdown();
     c.add(b == null ? "" : num(b.margin()));
     for (int t = 0; t < features + 3; t++) c.add(b == null ? "" : num(b.terms().get(t).delta()));
@@ -67,7 +67,8 @@ public final class AuditCsv {
       for (int k = 0; k < 6; k++) c.add("");
       return;
     }
-    c.addAll(List.of(f.basis().label(), num(f.lower()), num(f.weight()), num(f.upper()), num(f.distance()), num(f.returnWeight())));
+    c.addAll(List.of(f.basis().label(), num(f.lower()), num(f.weight()), num(f.upper()), num(f.distance()),
+        num(f.returnWeight())));
   }
 
   private static void ngrams(List<String> c, DecisiveNgrams d) {

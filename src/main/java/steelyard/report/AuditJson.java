@@ -106,7 +106,8 @@ public final class AuditJson {
     o.put("rank1_total", num(b.firstTotal()));
     ArrayNode terms = o.putArray("terms");
     for (ScoreBreakdown.Term t : b.terms()) {
-      terms.addObject().put("term", t.label()).put("pick_value", num(t.pickValue())).put("rank1_value", num(t.firstValue()))
+      terms.addObject().put("term", t.label())
+          .put("pick_value", num(t.pickValue())).put("rank1_value", num(t.firstValue()))
           .put("pick", num(t.pickWeighted())).put("rank1", num(t.firstWeighted())).put("delta", num(t.delta()));
     }
     return o;
