@@ -24,7 +24,7 @@ final class AuditChecks {
   /**
    * Net error change against the corpus difference computed by rescoring's own reference scorer (rank 1 −
    * chosen, summed over utterances with a reference), and the verdict counts against a brute recount with a
-   * plain Levenshtein distance (Wagner &amp; Fischer 1974) written here (the texts have no optional tokens).
+   * Levenshtein distance from commons-text (the texts have no optional tokens).
    */
   static void countsAndNetChange(AuditReport report, List<AuditInput> inputs, List<String> refTexts, Tokenizer unit) {
     ReferenceScorer scorer = new ReferenceScorer(unit, null);
@@ -146,19 +146,15 @@ final class AuditChecks {
         .choose(s).chosenTokens();
   }
 
-  /** Unit-cost edit distance by the textbook two-row recurrence. */
+  /** Unit-cost edit distance from commons-text (a reference library), tokens mapped to code points. */
   static int levenshtein(List<String> a, List<String> b) {
-    int[] prev = new int[b.size() + 1];
-    int[] cur = new int[b.size() + 1];
-    for (int j = 0; j <= b.size(); j++) prev[j] = j;
-    for (int i = 1; i <= a.size(); i++) {
-      cur[0] = i;
-      for (int j = 1; j <= b.size(); j++)
-        cur[j] = Math.min(Math.min(prev[j] + 1, cur[j - 1] + 1), prev[j - 1] + (a.get(i - 1).equals(b.get(j - 1)) ? 0 : 1));
-      int[] t = prev;
-      prev = cur;
-      cur = t;
-    }
-    return prev[b.size()];
+    Map<String, Integer> ids = new java.util.HashMap<>();
+    return new org.apache.commons.text.similarity.LevenshteinDistance().apply(codePoints(a, ids), codePoints(b, ids));
+  }
+
+  private static String codePoints(List<String> tokens, Map<String, Integer> ids) {
+    StringBuilder sb = new StringBuilder();
+    for (String t : tokens) sb.appendCodePoint(0x4E00 + ids.computeIfAbsent(t, k -> ids.size()));
+    return sb.toString();
   }
 }

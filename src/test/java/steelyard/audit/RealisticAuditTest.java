@@ -83,8 +83,7 @@ class RealisticAuditTest {
     AuditChecks.countsAndNetChange(a.report, a.inputs, references, WORDS);
     AuditChecks.ngramSums(a.report, a.results, lm);
     int edges = AuditChecks.nbestFlips(a.report, a.results, 0);
-    System.out.printf("realistic asr N-best: %d overrules (%d helped, %d hurt), net %d errors, %d flip edges checked%n",
-        a.report.total().overrules(), a.report.total().helped(), a.report.total().hurt(), a.report.total().netErrorChange(), edges);
+    print("N-best", a.report.total(), edges);
     assertThat(a.report.total().overrules()).isGreaterThan(20);
     assertThat(a.report.total().netErrorChange()).as("λ = 10 helps on this set").isPositive();
   }
@@ -96,9 +95,13 @@ class RealisticAuditTest {
     AuditChecks.countsAndNetChange(a.report, a.inputs, references, WORDS);
     AuditChecks.ngramSums(a.report, a.results, lm);
     int edges = AuditChecks.networkFlips(a.report, a.results, w, lm);
-    System.out.printf("realistic asr lattice: %d overrules (%d helped, %d hurt), net %d errors, %d flip edges checked%n",
-        a.report.total().overrules(), a.report.total().helped(), a.report.total().hurt(), a.report.total().netErrorChange(), edges);
+    print("lattice", a.report.total(), edges);
     assertThat(edges).isGreaterThan(20);
+  }
+
+  private static void print(String method, AuditCounts c, int edges) {
+    System.out.printf("realistic asr %s: %d overrules (%d helped, %d hurt), net %d errors, %d flip edges checked%n",
+        method, c.overrules(), c.helped(), c.hurt(), c.netErrorChange(), edges);
   }
 
   private record Audited(AuditReport report, List<AuditInput> inputs, Map<String, UtteranceResult> results) {}

@@ -1,6 +1,5 @@
 package steelyard.bench;
 
-import java.io.BufferedWriter;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -12,7 +11,6 @@ import steelyard.audit.AuditInput;
 import steelyard.audit.AuditReport;
 import steelyard.audit.AuditSettings;
 import steelyard.audit.OverruleAuditor;
-import steelyard.cli.Main;
 import steelyard.eval.Aligner;
 import steelyard.io.FeatureSpec;
 import steelyard.io.HypothesesReader;
@@ -68,7 +66,9 @@ public final class AuditBenchmark {
 
   private static void run(Path dir, int utterances, int per, int rounds, RescoreMethod method) throws IOException {
     long t0 = System.nanoTime();
-    LanguageModel lm = ModelFiles.load(model(dir));
+    Path modelFile = dir.resolve("lm3.arpa");
+    SyntheticModel.train(dir, modelFile);
+    LanguageModel lm = ModelFiles.load(modelFile);
     Path hyps = dir.resolve("hyps.csv");
     SyntheticHypotheses.write(hyps, (long) utterances * per, per, 42L);
     Normaliser norm = Normaliser.create(NormalisationOptions.EXACT);
@@ -102,20 +102,5 @@ public final class AuditBenchmark {
       System.out.printf(Locale.ROOT, "round %d: audit of %d overrules (%d helped, %d hurt, %d neutral) in %.3f s wall, %.3f s thread CPU%n",
           round, report.total().overrules(), report.total().helped(), report.total().hurt(), report.total().neutral(), s, c);
     }
-  }
-
-  /** A word 3-gram of the rank-1 sentences of another seed of the generator (its rank 1 is the clean sentence). */
-  private static Path model(Path dir) throws IOException {
-    Path source = dir.resolve("corpus-source.csv");
-    Path corpus = dir.resolve("corpus.txt");
-    Path model = dir.resolve("lm3.arpa");
-    SyntheticHypotheses.write(source, 50_000, 1, 7L);
-    try (BufferedWriter out = Files.newBufferedWriter(corpus);
-        HypothesesReader r = HypothesesReader.open(source, ImportOptions.strict(List.of()))) {
-      while (r.hasNext()) out.write(r.next().first().text() + "\n");
-    }
-    int code = Main.run("lm", "train", "--text", corpus.toString(), "--order", "3", "--out", model.toString());
-    if (code != 0) throw new IllegalStateException("lm train failed: " + code);
-    return model;
   }
 }
