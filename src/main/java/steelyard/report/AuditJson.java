@@ -125,7 +125,8 @@ public final class AuditJson {
 
   private static ObjectNode pathTerms(PathComparison c, PathComparison.PathTerms t) {
     return JsonOutput.object().put("ln_posterior", num(t.logPosterior())).put("lm_ln_prob", num(t.lmLogProb()))
-        .put("tokens", t.tokens()).put("score", num(c.score(t)));
+        .put("tokens", t.tokens()).put("lm_term", num(c.lmWeight() * t.lmLogProb()))
+        .put("length_term", num(c.lengthWeight() * t.tokens())).put("score", num(c.score(t)));
   }
 
   private static ObjectNode flip(FlipWeights f, RescoreMethod method, Unit unit) {
