@@ -95,13 +95,21 @@ public final class AuditBenchmark {
         (System.nanoTime() - t0) / 1e9);
     OverruleAuditor auditor = new OverruleAuditor(AuditSettings.of(features, Unit.WORD, lm, words, w.latticeSettings()));
     for (int round = 0; round < rounds; round++) {
+      long gc = gcMillis();
       long cpu = THREADS.getCurrentThreadCpuTime();
       long start = System.nanoTime();
       AuditReport report = auditor.auditAll(inputs);
       double s = (System.nanoTime() - start) / 1e9;
       double c = (THREADS.getCurrentThreadCpuTime() - cpu) / 1e9;
-      System.out.printf(Locale.ROOT, "round %d: audit of %d overrules (%d helped, %d hurt, %d neutral) in %.3f s wall, %.3f s thread CPU%n",
-          round, report.total().overrules(), report.total().helped(), report.total().hurt(), report.total().neutral(), s, c);
+      System.out.printf(Locale.ROOT, "round %d: audit of %d overrules (%d helped, %d hurt, %d neutral): %.3f s wall, "
+          + "%.3f s thread CPU, %d ms in GC%n", round, report.total().overrules(), report.total().helped(),
+          report.total().hurt(), report.total().neutral(), s, c, gcMillis() - gc);
     }
+  }
+
+  private static long gcMillis() {
+    long ms = 0;
+    for (var b : java.lang.management.ManagementFactory.getGarbageCollectorMXBeans()) ms += Math.max(0, b.getCollectionTime());
+    return ms;
   }
 }
