@@ -16,6 +16,7 @@ import picocli.CommandLine.Spec;
 import steelyard.lm.CompactModel;
 import steelyard.lm.ModelFiles;
 import steelyard.lm.ModelMetadata;
+import steelyard.lm.train.Smoothing;
 import steelyard.text.NormalisationOptions;
 
 /**
@@ -51,11 +52,14 @@ public final class LmInfoCommand implements Callable<Integer> {
     StringBuilder sb = new StringBuilder();
     sb.append(o.get("model").asText()).append("  (").append(FORMAT_NAMES.get(o.get("file_format").asText())).append(")\n");
     line(sb, "tokens", o.get("unit").asText() + "s, normalisation " + describe(lm.normalisation()));
-    line(sb, "vocabulary", lm.vocabularySize() + " token ids with <s>, </s> and <unk>; " + (lm.hasUnknownUnigram()
+    line(sb, "vocabulary", lm.vocabularySize() + " token ids, counting <s>, </s> and <unk>; " + (lm.hasUnknownUnigram()
         ? "out-of-vocabulary tokens score as <unk>"
-        : "no <unk> is listed, so out-of-vocabulary tokens score log10 P = " + lm.unknownFloorLog10() + " (--oov-log10-prob)"));
+        : "<unk> has no probability of its own, so out-of-vocabulary tokens score log10 P = " + lm.unknownFloorLog10()
+            + " (--oov-log10-prob)"));
     JsonNode smoothing = o.get("smoothing");
-    line(sb, "smoothing", smoothing.isNull() ? "not recorded in the file" : smoothing.asText());
+    Smoothing method = smoothing.isNull() ? null : Smoothing.ofKey(smoothing.asText());
+    line(sb, "smoothing", smoothing.isNull() ? "not recorded in the file"
+        : method == null ? smoothing.asText() : method.key() + " (" + method.title() + ")");
     sb.append('\n').append(String.format(Locale.ROOT, "  %5s  %12s  %s%n", "order", "n-grams", "kept when seen at least"));
     for (JsonNode k : o.get("orders")) {
       JsonNode min = k.get("min_count");
