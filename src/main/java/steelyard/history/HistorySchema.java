@@ -79,9 +79,20 @@ final class HistorySchema {
    * Throws an {@code InputException} for a database of another program, a newer schema, or missing tables.
    */
   static int check(Connection c, Path file) throws SQLException {
-    int appId = pragma(c, "application_id");
-    int version = pragma(c, "user_version");
-    List<String> tables = tables(c);
+    // One statement, so one snapshot: another process may be creating the schema between separate reads.
+    int appId;
+    int version;
+    List<String> tables = new ArrayList<>();
+    try (Statement s = c.createStatement();
+        ResultSet r = s.executeQuery("SELECT (SELECT application_id FROM pragma_application_id()),"
+            + " (SELECT user_version FROM pragma_user_version()),"
+            + " (SELECT group_concat(name, ',') FROM (SELECT name FROM sqlite_master WHERE type = 'table' ORDER BY name))")) {
+      r.next();
+      appId = r.getInt(1);
+      version = r.getInt(2);
+      String names = r.getString(3);
+      if (names != null) tables.addAll(List.of(names.split(",")));
+    }
     if (appId == 0 && version == 0 && tables.isEmpty()) return 0;
     if (appId != APPLICATION_ID) {
       String what = appId == 0 ? "tables " + String.join(", ", tables) : "application id " + hex(appId);
@@ -126,15 +137,6 @@ final class HistorySchema {
     try (Statement s = c.createStatement(); ResultSet r = s.executeQuery("PRAGMA " + name)) {
       return r.next() ? r.getInt(1) : 0;
     }
-  }
-
-  private static List<String> tables(Connection c) throws SQLException {
-    List<String> out = new ArrayList<>();
-    try (Statement s = c.createStatement();
-        ResultSet r = s.executeQuery("SELECT name FROM sqlite_master WHERE type = 'table' ORDER BY name")) {
-      while (r.next()) out.add(r.getString(1));
-    }
-    return out;
   }
 
   private static String hex(int v) {
