@@ -19,7 +19,8 @@ import java.util.Locale;
  *
  * <p>Version 1: {@code runs} (one row per run), {@code run_inputs} (its input files), {@code run_utterances} (its
  * per-utterance counts, in reference-file order). Version 2 adds {@code runs.label} (a compared system's name, or
- * {@code --system}) and the index {@code runs_by_data} that serves one test set's error series over time.
+ * {@code --system}), the index {@code runs_by_data} that serves one test set's error series over time and the
+ * covering index {@code runs_list} that serves the run list.
  */
 final class HistorySchema {
   /** "Stly" in ASCII: marks an SQLite file as a Steelyard run history. */
@@ -66,6 +67,9 @@ final class HistorySchema {
     { // 1 → 2
       "ALTER TABLE runs ADD COLUMN label TEXT",
       "CREATE INDEX runs_by_data ON runs(data_sha256, started_at)",
+      // Covers the run list, so listing reads this narrow index instead of the rows with their weights and command lines.
+      "CREATE INDEX runs_list ON runs(id, started_at, command, label, data_sha256, method, unit, utterances, reference_tokens,"
+          + " errors, ci95_low, ci95_high)",
     },
   };
 

@@ -1,5 +1,6 @@
 package steelyard.history;
 
+import java.nio.charset.StandardCharsets;
 import java.sql.Connection;
 import java.sql.PreparedStatement;
 import java.sql.ResultSet;
@@ -66,8 +67,8 @@ final class RunReader {
   }
 
   private static RunSummary summary(ResultSet r) throws SQLException {
-    return new RunSummary(r.getLong(1), time(r.getString(2)), r.getString(3), r.getString(4), r.getString(5),
-        r.getString(6), unit(r.getString(7)), r.getLong(8), r.getLong(9), r.getLong(10), interval(r, 11));
+    return new RunSummary(r.getLong(1), time(text(r, 2)), text(r, 3), text(r, 4), text(r, 5),
+        text(r, 6), unit(text(r, 7)), r.getLong(8), r.getLong(9), r.getLong(10), interval(r, 11));
   }
 
   /** The run with this id, with its inputs and (when {@code rows}) its per-utterance rows; empty when there is none. */
@@ -86,10 +87,10 @@ final class RunReader {
 
   private static RunRecord record(Connection c, long id, ResultSet r, boolean rows) throws SQLException {
     try {
-      return new RunRecord(time(r.getString(1)), r.getLong(2), r.getString(3), r.getString(4), strings(r.getString(5)),
-          r.getString(6), inputs(c, id), model(r, 7), r.getString(11), r.getString(12), unit(r.getString(13)), r.getString(14),
-          policy(r.getString(15)), new EditCounts(r.getLong(16), r.getLong(17), r.getLong(18), r.getLong(19)), interval(r, 20),
-          r.getInt(22), r.getLong(23), rows ? utterances(c, id) : UtteranceCounts.EMPTY, strings(r.getString(24)));
+      return new RunRecord(time(text(r, 1)), r.getLong(2), text(r, 3), text(r, 4), strings(text(r, 5)),
+          text(r, 6), inputs(c, id), model(r, 7), text(r, 11), text(r, 12), unit(text(r, 13)), text(r, 14),
+          policy(text(r, 15)), new EditCounts(r.getLong(16), r.getLong(17), r.getLong(18), r.getLong(19)), interval(r, 20),
+          r.getInt(22), r.getLong(23), rows ? utterances(c, id) : UtteranceCounts.EMPTY, strings(text(r, 24)));
     } catch (IllegalArgumentException | NullPointerException e) {
       throw new BadValue("run " + id + ": " + e.getMessage(), e);
     }
@@ -100,7 +101,7 @@ final class RunReader {
     try (PreparedStatement p = c.prepareStatement("SELECT weights_json FROM runs WHERE id = ?")) {
       p.setLong(1, id);
       try (ResultSet r = p.executeQuery()) {
-        return r.next() ? Optional.of(Optional.ofNullable(r.getString(1))) : Optional.empty();
+        return r.next() ? Optional.of(Optional.ofNullable(text(r, 1))) : Optional.empty();
       }
     }
   }
@@ -111,7 +112,7 @@ final class RunReader {
         "SELECT role, path, bytes, sha256, rows FROM run_inputs WHERE run_id = ? ORDER BY position")) {
       p.setLong(1, id);
       try (ResultSet r = p.executeQuery()) {
-        while (r.next()) out.add(new InputFile(r.getString(1), r.getString(2), r.getLong(3), r.getString(4), r.getLong(5)));
+        while (r.next()) out.add(new InputFile(text(r, 1), text(r, 2), r.getLong(3), text(r, 4), r.getLong(5)));
       }
     }
     return out;
@@ -123,10 +124,19 @@ final class RunReader {
         "SELECT utt_id, status, errors, reference_tokens FROM run_utterances WHERE run_id = ? ORDER BY position")) {
       p.setLong(1, id);
       try (ResultSet r = p.executeQuery()) {
-        while (r.next()) b.add(r.getString(1), status(r.getString(2)), r.getInt(3), r.getInt(4));
+        while (r.next()) b.add(text(r, 1), status(text(r, 2)), r.getInt(3), r.getInt(4));
       }
     }
     return b.build();
+  }
+
+  /**
+   * A text column. Read as its UTF-8 bytes: sqlite-jdbc's {@code getString} costs about six times as much, which
+   * dominates listing thousands of runs.
+   */
+  private static String text(ResultSet r, int column) throws SQLException {
+    byte[] b = r.getBytes(column);
+    return b == null ? null : new String(b, StandardCharsets.UTF_8);
   }
 
   private static List<String> strings(String json) {
@@ -146,8 +156,8 @@ final class RunReader {
   }
 
   private static ModelIdentity model(ResultSet r, int k) throws SQLException {
-    String sha = r.getString(k + 3);
-    return sha == null ? null : new ModelIdentity(r.getString(k), r.getInt(k + 1), r.getLong(k + 2), sha);
+    String sha = text(r, k + 3);
+    return sha == null ? null : new ModelIdentity(text(r, k), r.getInt(k + 1), r.getLong(k + 2), sha);
   }
 
   private static Bootstrap.Interval interval(ResultSet r, int k) throws SQLException {

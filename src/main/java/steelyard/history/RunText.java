@@ -1,9 +1,10 @@
 package steelyard.history;
 
+import java.time.Instant;
+import java.time.LocalDateTime;
 import java.time.ZoneOffset;
 import java.time.format.DateTimeFormatter;
 import java.util.List;
-import java.util.Locale;
 import steelyard.report.Numbers;
 import steelyard.report.ReportText;
 
@@ -11,24 +12,48 @@ import steelyard.report.ReportText;
 public final class RunText {
   /** Hex digits of a SHA-256 shown in the run list (enough to tell test sets apart, and to filter on). */
   public static final int SHORT_HASH = 12;
-  private static final DateTimeFormatter MINUTE = DateTimeFormatter.ofPattern("uuuu-MM-dd HH:mm").withZone(ZoneOffset.UTC);
   private static final DateTimeFormatter MILLIS = DateTimeFormatter.ofPattern("uuuu-MM-dd HH:mm:ss.SSS").withZone(ZoneOffset.UTC);
-  private static final String ROW = "%6s  %-16s  %-8s  %-12s  %-9s  %-11s  %-17s  %s%n";
 
   private RunText() {}
 
   /** One line per run: id, start (UTC), command, data (references hash), method, error rate and interval, label. */
   public static String table(List<RunSummary> runs) {
-    StringBuilder sb = new StringBuilder();
-    sb.append(String.format(Locale.ROOT, ROW, "id", "started (UTC)", "command", "data", "method", "error", "95% interval", "label"));
+    // Padded by hand rather than with String.format: ten thousand runs render in tens of milliseconds.
+    StringBuilder sb = new StringBuilder(96 * (runs.size() + 2));
+    row(sb, "id", "started (UTC)", "command", "data", "method", "error", "95% interval", "label");
     for (RunSummary r : runs) {
       String rate = ReportText.rateName(r.unit()) + " " + Numbers.percent(r.errorRate(), 2);
-      sb.append(String.format(Locale.ROOT, ROW, r.id(), MINUTE.format(r.startedAt()), r.command(), shortHash(r.dataSha256()),
-          r.method(), rate, interval(r.ci95().low(), r.ci95().high()), r.label() == null ? "" : r.label()));
+      row(sb, Long.toString(r.id()), minute(r.startedAt()), r.command(), shortHash(r.dataSha256()), r.method(), rate,
+          interval(r.ci95().low(), r.ci95().high()), r.label() == null ? "" : r.label());
     }
     sb.append(runs.size()).append(runs.size() == 1 ? " run" : " runs").append('\n');
     if (!runs.isEmpty()) sb.append(ReportText.REVIEW_NOTE).append('\n');
     return sb.toString();
+  }
+
+  private static final int[] WIDTHS = {6, 16, 8, 12, 9, 11, 17};
+
+  // The id right-aligned, every other column left-aligned, two spaces between columns, the label last and unpadded.
+  private static void row(StringBuilder sb, String... cells) {
+    sb.append(" ".repeat(Math.max(0, WIDTHS[0] - cells[0].length()))).append(cells[0]);
+    for (int i = 1; i < cells.length; i++) {
+      sb.append("  ").append(cells[i]);
+      if (i < WIDTHS.length) sb.append(" ".repeat(Math.max(0, WIDTHS[i] - cells[i].length())));
+    }
+    int end = sb.length();
+    while (end > 0 && sb.charAt(end - 1) == ' ') end--;
+    sb.setLength(end);
+    sb.append('\n');
+  }
+
+  // uuuu-MM-dd HH:mm in UTC.
+  private static String minute(Instant t) {
+    LocalDateTime d = LocalDateTime.ofEpochSecond(t.getEpochSecond(), 0, ZoneOffset.UTC);
+    return d.getYear() + "-" + two(d.getMonthValue()) + "-" + two(d.getDayOfMonth()) + " " + two(d.getHour()) + ":" + two(d.getMinute());
+  }
+
+  private static String two(int v) {
+    return v < 10 ? "0" + v : Integer.toString(v);
   }
 
   /** Everything about one run, its weights last. */

@@ -50,7 +50,7 @@ class RunHistoryTest {
           .build();
       RunRecord run = RunRecord.builder("rescore", T0, at(T0.plusMillis(2750)))
           .commandLine(List.of("rescore", "--hyps", hyps.toString(), "--lm", "voice.arpa"))
-          .label("tuned on dev")
+          .label("tuned on dev — Tallowmere é 🍐")
           .input(InputFile.HYPOTHESES, hyps, 1)
           .input(InputFile.REFERENCES, refs(), 1)
           .model(model, new ModelIdentity("voice.arpa", 3, 9, "ab".repeat(32)))
