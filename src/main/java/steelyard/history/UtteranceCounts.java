@@ -1,7 +1,9 @@
 package steelyard.history;
 
+import it.unimi.dsi.fastutil.objects.Object2IntOpenHashMap;
 import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.Collection;
 import java.util.List;
 import java.util.Objects;
 import steelyard.eval.CorpusScore;
@@ -51,6 +53,27 @@ public final class UtteranceCounts {
       case UtteranceScores.MISSING_EXCLUDED: return UtteranceStatus.MISSING_EXCLUDED;
       default: throw new AssertionError("unscored row status " + s);
     }
+  }
+
+  /**
+   * The same rows with those whose id is in {@code referenceOrder} first, in that order, then the others in their
+   * own order: for a command that meets utterances in hypotheses-file order (rescoring) and must store them in
+   * reference-file order. An id listed but without a row is skipped.
+   */
+  public UtteranceCounts inOrderOf(Collection<String> referenceOrder) {
+    Object2IntOpenHashMap<String> rowOf = new Object2IntOpenHashMap<>(size());
+    rowOf.defaultReturnValue(-1);
+    for (int r = 0; r < size(); r++) rowOf.putIfAbsent(ids[r], r);
+    boolean[] taken = new boolean[size()];
+    Builder b = new Builder(size());
+    for (String id : referenceOrder) {
+      int r = rowOf.getInt(id);
+      if (r < 0 || taken[r]) continue;
+      taken[r] = true;
+      b.add(ids[r], status(r), errors[r], referenceTokens[r]);
+    }
+    for (int r = 0; r < size(); r++) if (!taken[r]) b.add(ids[r], status(r), errors[r], referenceTokens[r]);
+    return b.build();
   }
 
   public int size() {
