@@ -94,8 +94,7 @@ public final class CompareCommand implements Callable<Integer> {
       throw InputException.option("--systems", "needs one --hyps file and two distinct system names, got " + hyps.size()
           + " file(s) and '" + String.join(",", systems) + "'", "--hyps FILE --systems A,B");
     List<String> display = names != null ? names : systems != null ? systems : List.of("A", "B");
-    if (display.size() != 2 || display.get(0).isBlank() || display.get(1).isBlank() || display.get(0).equals(display.get(1)))
-      throw InputException.option("--names", "'" + String.join(",", display) + "' is not two distinct names", "two names such as baseline,tuned");
+    checkNames(display);
     ScoreCommand.checkOptions(pick, resamples, 0);
     LinkedHashMap<String, Path> outputs = new LinkedHashMap<>();
     outputs.put("--json", json);
@@ -127,6 +126,12 @@ public final class CompareCommand implements Callable<Integer> {
     history.record(recorded(display.get(0), fileA, hypRows[0], a, warnings, normaliser, refMap.size()),
         recorded(display.get(1), fileB, hypRows[1], b, warnings, normaliser, refMap.size()));
     return Main.OK;
+  }
+
+  /** Refuses display names that are not two distinct, non-blank names. */
+  static void checkNames(List<String> display) {
+    if (display.size() != 2 || display.get(0).isBlank() || display.get(1).isBlank() || display.get(0).equals(display.get(1)))
+      throw InputException.option("--names", "'" + String.join(",", display) + "' is not two distinct names", "two names such as baseline,tuned");
   }
 
   // One compared system as a run of its own, labelled with its display name; its interval is computed only when recorded.

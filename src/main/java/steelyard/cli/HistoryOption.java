@@ -19,9 +19,9 @@ import steelyard.io.InputException;
  */
 public final class HistoryOption {
   @Option(names = "--history", paramLabel = "FILE",
-      description = "Run history (SQLite file, created when missing): record this run in it, or read runs from it."
-          + " Default: the file named by the environment variable " + HistoryRecording.ENVIRONMENT_VARIABLE
-          + "; with neither, nothing is recorded.")
+      description = "Run history (an SQLite file): scoring commands record the run in it, creating it when missing;"
+          + " the runs commands read it. Default: the file named by the environment variable "
+          + HistoryRecording.ENVIRONMENT_VARIABLE + "; with neither, nothing is recorded.")
   Path file;
 
   @Spec(Spec.Target.MIXEE) CommandSpec spec;

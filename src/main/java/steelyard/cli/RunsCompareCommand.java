@@ -9,7 +9,6 @@ import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import steelyard.history.RunHistory;
-import steelyard.io.InputException;
 import steelyard.report.CompareReport;
 import steelyard.report.JsonOutput;
 import steelyard.report.OutputPaths;
@@ -47,8 +46,7 @@ public final class RunsCompareCommand implements Callable<Integer> {
   @Override
   public Integer call() {
     ScoreCommand.checkOptions(steelyard.eval.Pick.FIRST, resamples, 0);
-    if (names != null && (names.size() != 2 || names.get(0).isBlank() || names.get(0).equals(names.get(1))))
-      throw InputException.option("--names", "'" + String.join(",", names) + "' is not two distinct names", "two names such as baseline,tuned");
+    if (names != null) CompareCommand.checkNames(names);
     try (RunHistory h = history.openExisting()) {
       LinkedHashMap<String, Path> outputs = new LinkedHashMap<>();
       outputs.put("--json", json);
