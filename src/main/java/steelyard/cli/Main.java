@@ -23,6 +23,7 @@ import steelyard.io.InputException;
       LmCommand.class,
       RescoreCommand.class,
       NetworkCommand.class,
+      RunsCommand.class,
       DemoDataCommand.class,
       CommandLine.HelpCommand.class
     })
