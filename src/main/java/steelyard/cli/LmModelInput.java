@@ -25,7 +25,7 @@ import steelyard.text.Normaliser;
 import steelyard.text.Unit;
 
 /**
- * Options of the commands that read one model: {@code --lm}, {@code --unk-log10}, {@code --progress}. The
+ * Options of the commands that read one model: {@code --lm}, {@code --oov-log10-prob}, {@code --progress}. The
  * {@code lm} commands require {@code --lm} ({@link #require}); {@code rescore} and {@code network} need it only
  * when a weight uses the model.
  */
@@ -36,8 +36,8 @@ public final class LmModelInput {
       description = "Model file: .arpa, .arpa.gz or .bin (rescore and network: needed when λ, ω or λ′ is not 0).")
   public Path lm;
 
-  @Option(names = "--unk-log10", paramLabel = "X", defaultValue = "-7",
-      description = "log10 probability of out-of-vocabulary tokens for a model without <unk> (closed vocabulary). Default ${DEFAULT-VALUE}.")
+  @Option(names = "--oov-log10-prob", paramLabel = "X", defaultValue = "-7",
+      description = "log10 probability of an out-of-vocabulary token when the model lists no <unk> (closed vocabulary). Default ${DEFAULT-VALUE}.")
   public double unknownLog10;
 
   @Option(names = "--progress", description = "Show loading progress on stderr (default: only when attached to a console).")

@@ -95,7 +95,7 @@ class ArchitectureTest {
 
   /**
    * The package map of DEVELOPERS.md ("The data's way through the packages"), bottom to top: each layer may use
-   * only the layers listed for it. Layers not built yet (tune, audit, history, gui) are optional, so the rule
+   * only the layers listed for it. Layers not built yet (tune, gui) are optional, so the rule
    * holds before they exist and binds them once they do.
    */
   static final ArchRule PACKAGE_MAP = layeredArchitecture()
