@@ -36,8 +36,9 @@ public final class RescoreCommand implements Callable<Integer> {
 
   @Mixin LmModelInput model;
 
-  @Option(names = "--method", paramLabel = "nbest|mbr|consensus|lattice", defaultValue = "nbest",
-      description = "How to choose: best total, minimum expected errors, consensus of the confusion network, or LM search over it. Default ${DEFAULT-VALUE}.")
+  @Option(names = "--method", paramLabel = "nbest|mbr|consensus|lattice",
+      description = "How to choose: best total, minimum expected errors, consensus of the confusion network, or LM search over it. "
+          + "Default: the method the --weights file was tuned for, else nbest.")
   RescoreMethod method;
 
   @Option(names = "--max-hyps", paramLabel = "N", defaultValue = "0", description = "Keep at most N hypotheses per system, by rank (0 = all).")

@@ -12,7 +12,6 @@ import steelyard.rescore.RescoreSummary;
 import steelyard.rescore.RescoreWeights;
 import steelyard.tune.TuneResult;
 import steelyard.tune.WeightInterval;
-import steelyard.tune.WeightNames;
 
 /**
  * Maps a run's results onto one section of the HTML report ({@link ReportModel.Section}): the audit (summary and
@@ -89,13 +88,7 @@ public final class ReportSections {
    */
   public static List<ReportModel.WeightRow> weights(RescoreWeights w, RescoreMethod method, TuneResult tuning) {
     Map<String, WeightInterval> intervals = tuning == null ? Map.of() : tuning.bestInterval();
-    List<String> names = new ArrayList<>(w.features().keySet());
-    names.addAll(List.of(WeightNames.LM, WeightNames.OOV, WeightNames.LENGTH));
-    if (method != RescoreMethod.NBEST) {
-      names.add(WeightNames.POSTERIOR_SCALE);
-      for (String system : w.systemWeights().keySet()) names.add(WeightNames.system(system));
-    }
-    if (method == RescoreMethod.LATTICE) names.addAll(List.of(WeightNames.LATTICE_LM, WeightNames.LATTICE_LENGTH));
+    List<String> names = WeightLabels.shaping(w, method);
     List<ReportModel.WeightRow> rows = new ArrayList<>(names.size());
     for (String n : names) rows.add(new ReportModel.WeightRow(WeightLabels.label(n), WeightLabels.value(w, n), note(intervals.get(n))));
     return rows;

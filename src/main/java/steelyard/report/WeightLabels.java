@@ -1,5 +1,8 @@
 package steelyard.report;
 
+import java.util.ArrayList;
+import java.util.List;
+import steelyard.rescore.RescoreMethod;
 import steelyard.rescore.RescoreWeights;
 import steelyard.tune.WeightNames;
 
@@ -21,17 +24,24 @@ final class WeightLabels {
     };
   }
 
-  /** The value of weight {@code name} in {@code w} (a feature not listed weighs 1, as rescoring counts it). */
+  /**
+   * The names of the weights that shape {@code method}'s picks: the feature weights, λ, ω and μ (the totals every
+   * method starts from), α and listed system weights for the methods that use posteriors, λ′ and μ′ for the
+   * lattice search.
+   */
+  static List<String> shaping(RescoreWeights w, RescoreMethod method) {
+    List<String> names = new ArrayList<>(w.features().keySet());
+    names.addAll(List.of(WeightNames.LM, WeightNames.OOV, WeightNames.LENGTH));
+    if (method != RescoreMethod.NBEST) {
+      names.add(WeightNames.POSTERIOR_SCALE);
+      for (String system : w.systemWeights().keySet()) names.add(WeightNames.system(system));
+    }
+    if (method == RescoreMethod.LATTICE) names.addAll(List.of(WeightNames.LATTICE_LM, WeightNames.LATTICE_LENGTH));
+    return names;
+  }
+
+  /** The value of weight {@code name} in {@code w} ({@link WeightNames#valueOf}). */
   static double value(RescoreWeights w, String name) {
-    return switch (name) {
-      case WeightNames.LM -> w.lmWeight();
-      case WeightNames.OOV -> w.oovWeight();
-      case WeightNames.LENGTH -> w.lengthWeight();
-      case WeightNames.POSTERIOR_SCALE -> w.posteriorScale();
-      case WeightNames.LATTICE_LM -> w.latticeLmWeight();
-      case WeightNames.LATTICE_LENGTH -> w.latticeLengthWeight();
-      default -> name.startsWith(WeightNames.SYSTEM_PREFIX)
-          ? w.systemWeight(name.substring(WeightNames.SYSTEM_PREFIX.length())) : w.features().getOrDefault(name, 1.0);
-    };
+    return WeightNames.valueOf(w, name);
   }
 }

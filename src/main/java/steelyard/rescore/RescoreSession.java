@@ -81,7 +81,7 @@ public final class RescoreSession {
    */
   public static RescoreSession open(RescoreConfig config) {
     SessionSetup s = new SessionSetup(config);
-    return new RescoreSession(s, s.weights, config.method());
+    return new RescoreSession(s, s.weights, s.method);
   }
 
   /**
