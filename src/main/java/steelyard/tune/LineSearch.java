@@ -69,7 +69,7 @@ final class LineSearch {
       start(t, s + left, first, counts, e);
       return;
     }
-    int[] keep = reaching(a, b, left, right);
+    int[] keep = reaching(a, b, t.tie, s, left, right, lo, hi);
     double[] ka = new double[keep.length];
     double[] kb = new double[keep.length];
     int[] tie = new int[keep.length];
@@ -131,23 +131,39 @@ final class LineSearch {
   }
 
   /**
-   * The lines that can reach the upper envelope between the left and the right winner: a pre-filter in O(n), not
-   * an envelope. A line highest somewhere in (lo, hi) has a slope between theirs and, the envelope being convex,
-   * reaches their common value at their crossing x* (if it is highest left of x*, it rises at least as fast as
-   * the left winner from there; right of x*, it falls at most as fast as the right winner). Kept with a margin of
-   * 10⁻⁹ relative, so rounding can only keep a line too many.
+   * The lines that can be highest somewhere in (lo, hi): a pre-filter in O(n), not an envelope. Between a left
+   * winner P and a right winner Q, a line that is highest somewhere has a slope between theirs and reaches
+   * their common value at their crossing x* (the envelope is convex: if the line is highest left of x*, it rises
+   * at least as fast as P from there on; right of x*, it falls at most as fast as Q). When the current weights
+   * (x = 0) lie inside the range, the test runs on each side of 0 with the winners at 0, which keeps far fewer
+   * lines when the range is unbounded. Kept with a margin of 10⁻⁹ relative, so rounding can only keep a line
+   * too many.
    */
-  private static int[] reaching(double[] a, double[] b, int left, int right) {
-    double x = (a[left] - a[right]) / (b[right] - b[left]);
-    double level = a[left] + b[left] * x;
-    double margin = 1e-9 * (1 + Math.abs(a[left]) + Math.abs(b[left] * x));
-    int[] keep = new int[a.length];
-    int n = 0;
-    for (int i = 0; i < a.length; i++) {
-      boolean inside = b[left] <= b[i] && b[i] <= b[right] && a[i] + b[i] * x >= level - margin;
-      if (inside || i == left || i == right) keep[n++] = i;
+  private static int[] reaching(double[] a, double[] b, int[] tieOrder, int s, int left, int right, double lo, double hi) {
+    boolean[] keep = new boolean[a.length];
+    if (lo < 0 && 0 < hi) {
+      mark(a, b, left, rightWinner(a, b, tieOrder, s, 0), keep);
+      mark(a, b, leftWinner(a, b, tieOrder, s, 0), right, keep);
+    } else {
+      mark(a, b, left, right, keep);
     }
-    return java.util.Arrays.copyOf(keep, n);
+    int n = 0;
+    for (boolean k : keep) if (k) n++;
+    int[] out = new int[n];
+    n = 0;
+    for (int i = 0; i < a.length; i++) if (keep[i]) out[n++] = i;
+    return out;
+  }
+
+  /** Marks the lines that can be highest between the winners {@code p} (left) and {@code q} (right), and both. */
+  private static void mark(double[] a, double[] b, int p, int q, boolean[] keep) {
+    keep[p] = true;
+    keep[q] = true;
+    if (p == q) return;
+    double x = (a[p] - a[q]) / (b[q] - b[p]);
+    double level = a[p] + b[p] * x;
+    double margin = 1e-9 * (1 + Math.abs(a[p]) + Math.abs(b[p] * x));
+    for (int i = 0; i < a.length; i++) if (b[p] <= b[i] && b[i] <= b[q] && a[i] + b[i] * x >= level - margin) keep[i] = true;
   }
 
   /** Changes of (helped, hurt, changed), each in −1 … 1, packed as three 2-bit fields (0 when none changes). */
