@@ -24,6 +24,7 @@ import steelyard.io.InputException;
       CompareCommand.class,
       LmCommand.class,
       RescoreCommand.class,
+      AuditCommand.class,
       NetworkCommand.class,
       RunsCommand.class,
       DemoDataCommand.class,
