@@ -25,6 +25,7 @@ import steelyard.io.InputException;
       LmCommand.class,
       RescoreCommand.class,
       TuneCommand.class,
+      AuditCommand.class,
       NetworkCommand.class,
       RunsCommand.class,
       DemoDataCommand.class,

@@ -57,6 +57,8 @@ public final class RescoreCommand implements Callable<Integer> {
   Path breakdown;
 
   @Mixin JsonOutputOption json;
+  @Mixin HistoryOption history;
+
   @Override
   public Integer call() {
     if (maxHyps < 0) throw InputException.option("--max-hyps", "is " + maxHyps, "0 (all) or a positive number");
@@ -76,6 +78,12 @@ public final class RescoreCommand implements Callable<Integer> {
     RescoreRun.Result result = RescoreRun.run(session, input.hyps, references.refs, new RescoreRun.Outputs(picks, breakdown, json.file, saveWeights),
         run.effectiveThreads(), run.seed, input.skipped(), spec.commandLine().getOut());
     RescoreSupport.printSummary(err, result, session.method());
+    if (references.refs != null) {
+      RescoreSupport.record(history, session, new RescoreSupport.InputsUsed(input.hyps, references.refs, normalisation.rules,
+          weightOptions.weightsFile), result.summary(), result.ci95(), run.seed);
+    } else if (history.file != null) {
+      RescoreSupport.warn(err, "run not recorded in the history: --history records rescoring runs with --refs only");
+    }
     return Main.OK;
   }
 }

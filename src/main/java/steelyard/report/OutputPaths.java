@@ -39,6 +39,22 @@ public final class OutputPaths {
     }
   }
 
+  /**
+   * Throws an {@link InputException} when an output file (null and {@code -} ignored) cannot be created: its
+   * directory does not exist, or the path is a directory. Called before any work, so that a run whose outputs
+   * cannot all be written writes none of them.
+   */
+  public static void requireWritable(Iterable<Path> outputs) {
+    for (Path p : outputs) {
+      if (p == null || isStdout(p)) continue;
+      Path abs = p.toAbsolutePath().normalize();
+      if (Files.isDirectory(abs)) throw InputException.inFile(p, "is a directory", "a file path for the output");
+      Path dir = abs.getParent();
+      if (dir == null || !Files.isDirectory(dir))
+        throw InputException.inFile(p, "directory " + dir + " does not exist", "an output path in an existing directory");
+    }
+  }
+
   /** Whether {@code p} is {@code -}, standard output. */
   public static boolean isStdout(Path p) {
     return p != null && p.toString().equals("-");

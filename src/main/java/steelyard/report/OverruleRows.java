@@ -90,28 +90,19 @@ final class OverruleRows {
   }
 
   /**
-   * The decisive n-grams, largest difference first: the pick's n-gram with the order the model matched, and rank 1's
-   * when it is a different one ("bay four (2) vs day (1)": rank 1 backed off to a unigram).
+   * The decisive n-grams, largest difference first: the pick's n-gram where it has one, else rank 1's (its tokens
+   * as written, oldest first; its length is the order the model matched, so a back-off shows as a shorter n-gram).
    */
   private List<ReportModel.DecisiveNgram> decisive(DecisiveNgrams n) {
     List<ReportModel.DecisiveNgram> out = new ArrayList<>();
     if (n == null) return out;
-    for (DecisiveNgrams.Contribution c : n.contributions()) out.add(new ReportModel.DecisiveNgram(text(c), c.difference()));
+    for (DecisiveNgrams.Contribution c : n.contributions()) {
+      DecisiveNgrams.NgramUse use = c.pick() != null ? c.pick() : c.first();
+      List<String> shown = new ArrayList<>(use.ngram().size());
+      for (String t : use.ngram()) shown.add(shown(t));
+      out.add(new ReportModel.DecisiveNgram(String.join(characters ? "" : " ", shown), c.difference()));
+    }
     return out;
-  }
-
-  private String text(DecisiveNgrams.Contribution c) {
-    if (c.first() == null) return use(c.pick()) + " vs nothing";
-    if (c.pick() == null) return "nothing vs " + use(c.first());
-    String p = use(c.pick());
-    String f = use(c.first());
-    return p.equals(f) ? p : p + " vs " + f;
-  }
-
-  private String use(DecisiveNgrams.NgramUse u) {
-    List<String> shown = new ArrayList<>(u.ngram().size());
-    for (String t : u.ngram()) shown.add(shown(t));
-    return String.join(characters ? "" : " ", shown) + " (" + u.order() + ")";
   }
 
   private List<ReportModel.PairCount> pairs(List<TokenTally> tallies) {

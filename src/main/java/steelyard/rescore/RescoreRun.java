@@ -94,8 +94,7 @@ public final class RescoreRun {
     Bootstrap.Interval ci = null;
     PairedComparison paired = null;
     if (withReferences) {
-      ci = Bootstrap.corpusRate(summary.errorsPerUtterance(), summary.referenceTokensPerUtterance(),
-          Bootstrap.DEFAULT_RESAMPLES, seed, threads);
+      ci = summary.interval(Bootstrap.DEFAULT_RESAMPLES, seed, threads);
       paired = summary.versusFirst(Bootstrap.DEFAULT_RESAMPLES, seed, threads);
     }
     ObjectNode node = summary.toJson(session.method().label(), session.unit().label(), seed, withReferences,

@@ -32,6 +32,7 @@ final class SessionSetup {
   final Unit unit;
   final Tokenizer unitTokens;
   final Tokenizer lmTokens;
+  final String normalisation;
   final HypothesisScorer scorer;
   final ImportOptions importOptions;
   final List<String> warnings;
@@ -60,6 +61,7 @@ final class SessionSetup {
     if (fileSpec.model != null && c.modelPath() != null && model != null && !fileSpec.model.sameModel(modelIdentity()))
       warn.add("the weights in " + c.weightsFile() + " were tuned with model " + fileSpec.model.file() + ", not " + c.modelPath());
     Normaliser scoring = Normaliser.create(c.normalisation());
+    normalisation = scoring.describe();
     Unit u = unit;
     unitTokens = raw -> scoring.tokens(raw, u);
     lmTokens = lmTokens(model, unit, c, unitTokens);
