@@ -46,8 +46,8 @@ public final class AuditCommand implements Callable<Integer> {
   @Mixin NormalisationInput normalisation;
   @Mixin RunInput run;
 
-  @Option(names = "--method", paramLabel = "nbest|mbr|consensus|lattice", defaultValue = "nbest",
-      description = "How to choose (as in rescore). Default ${DEFAULT-VALUE}.")
+  @Option(names = "--method", paramLabel = "nbest|mbr|consensus|lattice",
+      description = "How to choose (as in rescore). Default: the method the --weights file was tuned for, else nbest.")
   RescoreMethod method;
 
   @Option(names = "--max-hyps", paramLabel = "N", defaultValue = "0", description = "Keep at most N hypotheses per system, by rank (0 = all).")

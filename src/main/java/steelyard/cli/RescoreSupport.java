@@ -5,7 +5,6 @@ import java.nio.file.Path;
 import java.util.Locale;
 import steelyard.eval.Bootstrap;
 import steelyard.history.InputFile;
-import steelyard.rescore.ModelIdentity;
 import steelyard.rescore.RescoreSession;
 import steelyard.rescore.WeightsSpec;
 import steelyard.eval.EditCounts;
@@ -78,10 +77,16 @@ final class RescoreSupport {
    */
   static void record(HistoryOption history, RescoreSession s, InputsUsed in, RescoreSummary summary, Bootstrap.Interval ci, long seed) {
     if (history.target() == null) return;
-    ModelIdentity model = s.modelIdentity();
+    record(history, s, in, summary, ci, seed, WeightsSpec.of(s.weights(), s.unit(), s.modelIdentity()));
+  }
+
+  /** As above, recording {@code weights} (e.g. a tuned weights file with its tuning record) as the weights in effect. */
+  static void record(HistoryOption history, RescoreSession s, InputsUsed in, RescoreSummary summary, Bootstrap.Interval ci, long seed,
+      WeightsSpec weights) {
+    if (history.target() == null) return;
     history.record(history.run().warnings(s.warnings()).rescored(s.method().label(), summary, ci, Bootstrap.DEFAULT_RESAMPLES, seed)
-        .unit(s.unit(), s.normalisationDescription()).model(s.config().modelPath(), model)
-        .weights(WeightsSpec.of(s.weights(), s.unit(), model))
+        .unit(s.unit(), s.normalisationDescription()).model(s.config().modelPath(), s.modelIdentity())
+        .weights(weights)
         .input(InputFile.HYPOTHESES, in.hyps(), InputFile.UNKNOWN_ROWS)
         .input(InputFile.REFERENCES, in.refs(), summary.referenceOrder().size())
         .input(InputFile.RULES, in.rules(), InputFile.UNKNOWN_ROWS)

@@ -109,7 +109,7 @@ public final class TuneCommand implements Callable<Integer> {
     o.result().warnings().forEach(w -> RescoreSupport.warn(err, w));
     err.print(TuneText.summary(o, out));
     err.flush();
-    TuneHistory.record(history, o, model.lm, normalisation.rules, run.effectiveThreads(), warnings);
+    TuneHistory.record(history, o, normalisation.rules, weightOptions.weightsFile, run.effectiveThreads(), run.seed);
     return Main.OK;
   }
 

@@ -1,22 +1,24 @@
 package steelyard.cli;
 
 import java.nio.file.Path;
-import java.util.List;
-import steelyard.history.InputFile;
+import steelyard.report.AuditRun;
+import steelyard.rescore.RescoreSession;
 import steelyard.tune.TuneJob;
 
-/** What {@code tune --history} records: the tuned weights on the dev set, as a rescoring run with references. */
+/**
+ * What {@code tune --history} records: the dev set chosen again with the tuned weights and method, as a rescoring
+ * run with references ({@code rescore --refs} would record the same counts), with the tuned weights file as the
+ * weights in effect. Nothing is computed or hashed when history is off.
+ */
 final class TuneHistory {
   private TuneHistory() {}
 
-  static void record(HistoryOption history, TuneJob.Outcome o, Path model, Path rules, int threads, List<String> warnings) {
+  static void record(HistoryOption history, TuneJob.Outcome o, Path rules, Path startWeights, int threads, long seed) {
     if (history.target() == null) return;
-    var dev = o.dev();
-    history.record(history.run().method(o.result().method().label()).weights(o.weights())
-        .unit(dev.session().unit(), null).warnings(warnings)
-        .model(model, dev.session().modelIdentity())
-        .input(InputFile.HYPOTHESES, dev.hypotheses(), dev.set().hypotheses())
-        .input(InputFile.REFERENCES, dev.references(), dev.set().size() + dev.set().missingHypotheses().size() - dev.set().missingReferences().size())
-        .input(InputFile.RULES, rules, InputFile.UNKNOWN_ROWS));
+    TuneJob.Dev dev = o.dev();
+    RescoreSession tuned = dev.session().withWeights(o.result().weights(), o.result().method());
+    AuditRun.Result check = AuditRun.of(tuned, dev.set(), dev.referenceOrder(), threads, seed);
+    RescoreSupport.record(history, tuned, new RescoreSupport.InputsUsed(dev.hypotheses(), dev.references(), rules, startWeights),
+        check.summary(), check.ci95(), seed, o.weights());
   }
 }

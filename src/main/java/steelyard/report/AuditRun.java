@@ -2,6 +2,7 @@ package steelyard.report;
 
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.Collection;
 import java.util.List;
 import java.util.Map;
 import java.util.TreeMap;
@@ -27,7 +28,6 @@ import steelyard.rescore.ScoredSet;
 import steelyard.rescore.UtteranceErrors;
 import steelyard.rescore.UtteranceResult;
 import steelyard.text.Unit;
-import steelyard.tune.DevUtterance;
 import steelyard.tune.TuneInput;
 
 /**
@@ -98,10 +98,8 @@ public final class AuditRun {
 
     /** The chart series at the session's weights over the utterances with a reference ({@link ReportSweeps}); null without any. */
     public ChartSeries charts(int threads) {
-      List<DevUtterance> dev = new ArrayList<>();
-      for (ScoredSet.Entry e : set.utterances()) if (e.reference() != null) dev.add(new DevUtterance(e.scores(), e.reference(), e.group()));
-      if (dev.isEmpty()) return null;
-      TuneInput input = TuneInput.of(dev, set.featureNames(), session.model(), session.weights());
+      if (set.utterances().stream().allMatch(e -> e.reference() == null)) return null;
+      TuneInput input = TuneInput.of(set, session, session.weights());
       return ReportSweeps.series(input, session.weights(), session.method(), oracleErrors, missingTokens(), threads);
     }
   }
@@ -122,12 +120,23 @@ public final class AuditRun {
       BooleanSupplier cancelled) {
     Map<String, Reference> references = refs == null ? null : session.readReferences(refs);
     ScoredSet set = session.loadWithReferences(hyps, references, threads, listener, cancelled);
+    return of(session, set, references == null ? null : references.keySet(), threads, seed);
+  }
+
+  /**
+   * The audit of an already loaded set with {@code session}'s weights and method (e.g. a dev set loaded for tuning,
+   * chosen again with the tuned weights).
+   *
+   * @param referenceOrder the references file's ids in file order (the order a run history stores); null when the
+   *                       set was loaded without references
+   */
+  public static Result of(RescoreSession session, ScoredSet set, Collection<String> referenceOrder, int threads, long seed) {
     OverruleAuditor auditor = new OverruleAuditor(AuditSettings.of(session.featureNames(), session.unit(), session.model(),
         session.modelTokens(), session.weights().latticeSettings()));
     List<Audited> audited = auditEach(session, auditor, set, threads);
     AuditAccumulator acc = auditor.accumulator();
     RescoreSummary summary = new RescoreSummary();
-    if (references != null) summary.referenceOrder(references.keySet());
+    if (referenceOrder != null) summary.referenceOrder(referenceOrder);
     Map<String, long[]> groups = new TreeMap<>();
     long oracle = 0;
     List<AuditInput> inputs = new ArrayList<>(audited.size());

@@ -4,7 +4,9 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import java.util.function.BooleanSupplier;
+import steelyard.io.Reference;
 import steelyard.rescore.RescoreSession;
 import steelyard.rescore.RescoreWeights;
 import steelyard.rescore.ScoredSet;
@@ -36,11 +38,14 @@ public final class TuneJob {
    * @param hypotheses the dev hypotheses file
    * @param references the dev references file
    * @param set        every utterance as scored, with references
+   * @param referenceOrder the references file's ids in file order
    * @param input      the utterances with a reference, from the session's weights
    * @param warnings   what the load left out: utterances without a reference, references without hypotheses
    */
-  public record Dev(RescoreSession session, Path hypotheses, Path references, ScoredSet set, TuneInput input, List<String> warnings) {
+  public record Dev(RescoreSession session, Path hypotheses, Path references, ScoredSet set, List<String> referenceOrder,
+      TuneInput input, List<String> warnings) {
     public Dev {
+      referenceOrder = List.copyOf(referenceOrder);
       warnings = List.copyOf(warnings);
     }
   }
@@ -69,7 +74,8 @@ public final class TuneJob {
    */
   public static Dev load(RescoreSession session, Path hyps, Path refs, int threads, RescoreSession.LoadListener listener,
       BooleanSupplier cancelled) {
-    ScoredSet set = session.loadAll(hyps, refs, threads, listener, cancelled);
+    Map<String, Reference> references = session.readReferences(refs);
+    ScoredSet set = session.loadWithReferences(hyps, references, threads, listener, cancelled);
     TuneInput input = TuneInput.of(set, session, session.weights());
     List<String> warnings = new ArrayList<>();
     int noRef = set.missingReferences().size();
@@ -80,7 +86,7 @@ public final class TuneJob {
     if (noHyps > 0)
       warnings.add(String.format(Locale.ROOT, "%d references of %s have no hypotheses and are left out of tuning (first: %s); "
           + "rescore --refs counts them as all deletions", noHyps, refs, set.missingHypotheses().get(0).uttId()));
-    return new Dev(session, hyps, refs, set, input, warnings);
+    return new Dev(session, hyps, refs, set, new ArrayList<>(references.keySet()), input, warnings);
   }
 
   /**

@@ -206,4 +206,22 @@ class TuneCommandTest {
       return to;
     }
   }
+
+  @Nested
+  class History {
+    @Test
+    void aRecordedTuneIsListedAndGivesBackTheTunedWeightsFile(@TempDir Path here) throws IOException {
+      String db = here.resolve("runs.db").toString();
+      ScoreCommandTest.Result t = tune(HYPS, "2", "recorded", "--history", db);
+      assertThat(t.code()).as(t.err()).isZero();
+      ScoreCommandTest.Result list = ScoreCommandTest.run("runs", "list", "--history", db);
+      assertThat(list.out()).contains("tune", "nbest");
+      Path back = here.resolve("back.json");
+      assertThat(ScoreCommandTest.run("runs", "weights", "1", "--history", db, "--out", back.toString()).code()).isZero();
+      assertThat(Files.readAllBytes(back)).isEqualTo(Files.readAllBytes(dir.resolve("recorded.weights.json")));
+      ScoreCommandTest.Result show = ScoreCommandTest.run("runs", "show", "1", "--history", db);
+      assertThat(show.out()).as("the recorded dev error is the tuned one")
+          .contains(steelyard.report.Numbers.percent(json("recorded").get("dev_error_rate").asDouble(), 2));
+    }
+  }
 }
