@@ -103,9 +103,7 @@ public final class TuneCommand implements Callable<Integer> {
       dev.warnings().forEach(w -> RescoreSupport.warn(err, w));
       o = TuneJob.run(dev, settings, bar, () -> false);
     }
-    List<String> warnings = new ArrayList<>(session.warnings());
-    warnings.addAll(o.warnings());
-    writeOutputs(o, warnings);
+    writeOutputs(o);
     o.result().warnings().forEach(w -> RescoreSupport.warn(err, w));
     err.print(TuneText.summary(o, out));
     err.flush();
@@ -123,9 +121,9 @@ public final class TuneCommand implements Callable<Integer> {
   }
 
   /** Renders every output first, then writes each atomically: a failure while rendering writes nothing. */
-  private void writeOutputs(TuneJob.Outcome o, List<String> warnings) {
+  private void writeOutputs(TuneJob.Outcome o) {
     String weights = WeightsFile.toJson(o.weights());
-    String summary = json.file == null ? null : JsonOutput.render(TuneJson.json(o, warnings));
+    String summary = json.file == null ? null : JsonOutput.render(TuneJson.json(o));
     String grid = surface == null || o.result().surface() == null ? null : surfaceText(o);
     if (surface != null && grid == null)
       RescoreSupport.warn(spec.commandLine().getErr(), "no error surface for " + o.result().method().label() + " (the tuner kept the "

@@ -2,7 +2,6 @@ package steelyard.report;
 
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
-import java.util.List;
 import java.util.Map;
 import steelyard.io.JsonOutput;
 import steelyard.rescore.RescoreSummary;
@@ -33,8 +32,8 @@ public final class TuneJson {
 
   private TuneJson() {}
 
-  /** The summary of {@code o}; {@code warnings} are all the run's warnings in order (the session's first). */
-  public static ObjectNode json(TuneJob.Outcome o, List<String> warnings) {
+  /** The summary of {@code o}, with all its warnings ({@link TuneJob.Outcome#warnings}). */
+  public static ObjectNode json(TuneJob.Outcome o) {
     TuneResult r = o.result();
     Unit unit = o.dev().session().unit();
     ObjectNode j = JsonOutput.object();
@@ -59,7 +58,7 @@ public final class TuneJson {
     ObjectNode left = j.putObject("left_out");
     left.put("utterances_without_reference", o.dev().set().missingReferences().size());
     left.put("references_without_hypotheses", o.dev().set().missingHypotheses().size());
-    j.set("warnings", JsonOutput.strings(warnings));
+    j.set("warnings", JsonOutput.strings(o.warnings()));
     return j;
   }
 

@@ -59,9 +59,10 @@ public final class TuneJob {
    *                {@link TuningRecord}
    */
   public record Outcome(Dev dev, TuneResult result, WeightsSpec weights) {
-    /** The load's warnings, then the tuner's. */
+    /** The session's warnings (from opening it), the load's, then the tuner's. */
     public List<String> warnings() {
-      List<String> w = new ArrayList<>(dev.warnings());
+      List<String> w = new ArrayList<>(dev.session().warnings());
+      w.addAll(dev.warnings());
       w.addAll(result.warnings());
       return w;
     }
