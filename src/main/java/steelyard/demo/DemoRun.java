@@ -129,10 +129,18 @@ public final class DemoRun {
     sb.append("  weights   ").append(TuneText.weights(t.weights(), t.method())).append('\n');
     sb.append(String.format(Locale.ROOT, "  %s dev   %s; cross-validated %s%n", measure, beforeAfter(run.dev().versusFirst()),
         Numbers.percent(t.cvErrorRate(), 2)));
-    sb.append(String.format(Locale.ROOT, "  %s test  %s%n", measure, beforeAfter(run.test().versusFirst())));
+    RescoreSummary test = run.test().summary();
+    sb.append(String.format(Locale.ROOT, "  %s test  %s; N-best oracle %s%n", measure, beforeAfter(run.test().versusFirst()),
+        Numbers.percent((double) test.oracle().errors() / test.oracle().referenceTokens(), 2)));
     AuditCounts c = run.test().audit().total();
-    sb.append(String.format(Locale.ROOT, "  test overrules %d of %d utterances: %d helped, %d hurt, %d neutral; %d fewer errors in all%n%n",
-        c.overrules(), run.test().audit().utterances(), c.helped(), c.hurt(), c.neutral(), c.netErrorChange()));
+    sb.append(String.format(Locale.ROOT, "  overrules %d of %d test utterances (%d new transcripts): %d helped, %d hurt, %d neutral; %s%n%n",
+        c.overrules(), run.test().audit().utterances(), test.newTranscripts(), c.helped(), c.hurt(), c.neutral(), net(c.netErrorChange())));
+  }
+
+  /** The net error change of the overrules in words: "461 errors fewer", "3 errors more", "no net change". */
+  private static String net(long change) {
+    if (change == 0) return "no net change in errors";
+    return Math.abs(change) + (change > 0 ? " errors fewer" : " errors more") + " in all";
   }
 
   /** "rank 1 22.67% (20.93% to 24.49%) -> 8.86% (7.35% to 10.42%)": both with their 95 % bootstrap intervals. */

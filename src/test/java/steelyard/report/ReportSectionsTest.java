@@ -149,7 +149,7 @@ class ReportSectionsTest {
   void nbestWeightsListFeaturesLambdaOmegaAndMuOnly() {
     assertThat(section.figures().weights()).extracting(ReportModel.WeightRow::name)
         .containsExactly("feature acoustic", "feature lm", "LM weight λ", "OOV weight ω", "length weight μ");
-    assertThat(section.figures().weights().get(2).value()).isEqualTo(16.0);
+    assertThat(section.figures().weights().get(2).value()).as("λ of the weights file").isEqualTo(voice.session().weights().lmWeight());
   }
 
   @Test
