@@ -15,15 +15,15 @@ import steelyard.eval.MissingHypothesisPolicy;
 import steelyard.eval.PairedComparison;
 import steelyard.eval.Pick;
 import steelyard.eval.SystemFilter;
-import steelyard.io.FeatureSpec;
+import steelyard.history.InputFile;
+import steelyard.history.RunRecord;
 import steelyard.io.HypothesesReader;
 import steelyard.io.ImportOptions;
 import steelyard.io.InputException;
 import steelyard.io.Reference;
 import steelyard.io.ReferencesReader;
-import steelyard.io.SkippedRow;
 import steelyard.report.CompareReport;
-import steelyard.report.JsonOutput;
+import steelyard.io.JsonOutput;
 import steelyard.report.OutputPaths;
 import steelyard.text.Normaliser;
 import steelyard.text.Unit;
@@ -41,7 +41,7 @@ import steelyard.text.Unit;
       "The plain-text report goes to stdout (to stderr when --json is '-')."
     })
 public final class CompareCommand implements Callable<Integer> {
-  // The shared hypotheses mixin takes one --hyps; compare takes two, so its import options are declared here.
+  // The shared hypotheses mixin takes one --hyps; compare takes two, so it uses the import options alone.
   @Option(names = "--hyps", required = true, paramLabel = "FILE",
       description = "Hypotheses CSV of a system; give two (A, then B), or one together with --systems.")
   List<Path> hyps;
@@ -53,21 +53,14 @@ public final class CompareCommand implements Callable<Integer> {
   @Option(names = "--names", paramLabel = "A,B", split = ",", description = "Display names of the two systems (default A,B).")
   List<String> names;
 
-  @Option(names = "--features", paramLabel = "SPECS",
-      description = "Score columns to validate as numbers, comma-separated NAME[:ln|log10|cost|linear][:scale=S].")
-  String features;
-
-  @Option(names = "--primary-system", paramLabel = "NAME", description = "System that wins ties for rank 1 between systems within a file.")
-  String primarySystem;
-
-  @Option(names = "--max-bad-rows", paramLabel = "N", defaultValue = "0", description = "Skip at most N malformed rows per file, reporting each (default ${DEFAULT-VALUE}).")
-  int maxBadRows;
+  @Mixin ImportInput imports;
 
   @Mixin NormalisationInput normalisation;
   @Mixin RunInput run;
+  @Mixin HistoryOption history;
+  @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
-  @Option(names = "--refs", required = true, paramLabel = "FILE", description = "References CSV (utt_id,text[,group]; .gz accepted).")
-  Path refs;
+  @Mixin ReferencesInput references;
 
   @Option(names = "--pick", paramLabel = "first|oracle", defaultValue = "first", description = "Hypothesis scored per utterance (default ${DEFAULT-VALUE}).")
   Pick pick;
@@ -80,47 +73,62 @@ public final class CompareCommand implements Callable<Integer> {
   @Option(names = "--resamples", paramLabel = "N", defaultValue = "1000", description = "Bootstrap resamples (default ${DEFAULT-VALUE}).")
   int resamples;
 
-  @Option(names = "--json", paramLabel = "FILE|-", description = "Write the JSON summary to FILE, or to stdout with '-'.")
-  Path json;
+  @Mixin JsonOutputOption json;
 
   @Override
   public Integer call() {
+    Path refs = references.require();
     if (systems == null && hyps.size() != 2)
       throw InputException.option("--hyps", "given " + hyps.size() + " time(s)", "two hypotheses files, A then B, or one file with --systems A,B");
     if (systems != null && (hyps.size() != 1 || systems.size() != 2 || systems.get(0).equals(systems.get(1))))
       throw InputException.option("--systems", "needs one --hyps file and two distinct system names, got " + hyps.size()
           + " file(s) and '" + String.join(",", systems) + "'", "--hyps FILE --systems A,B");
     List<String> display = names != null ? names : systems != null ? systems : List.of("A", "B");
-    if (display.size() != 2 || display.get(0).isBlank() || display.get(1).isBlank() || display.get(0).equals(display.get(1)))
-      throw InputException.option("--names", "'" + String.join(",", display) + "' is not two distinct names", "two names such as baseline,tuned");
+    checkNames(display);
     ScoreCommand.checkOptions(pick, resamples, 0);
     LinkedHashMap<String, Path> outputs = new LinkedHashMap<>();
-    outputs.put("--json", json);
+    outputs.put("--json", json.file);
     List<Path> inputs = new ArrayList<>(hyps);
     inputs.add(refs);
     inputs.add(normalisation.rules);
     OutputPaths.refuseClashes(outputs, inputs);
 
     List<String> warnings = new ArrayList<>();
-    List<SkippedRow> skipped = new ArrayList<>();
-    ImportOptions options = importOptions(warnings, skipped);
+    ImportOptions options = imports.importOptions(spec.commandLine().getErr(), warnings::add);
     Normaliser normaliser = Normaliser.create(normalisation.options());
     Unit unit = normalisation.unit;
     LinkedHashMap<String, Reference> refMap = ReferencesReader.readAll(refs, ScoreCommand.withoutFeatures(options));
     CorpusScorer scorer = new CorpusScorer(raw -> normaliser.tokens(raw, unit), new CorpusScorer.Settings(pick, missing, 0, false));
     Path fileA = hyps.get(0);
     Path fileB = systems == null ? hyps.get(1) : hyps.get(0);
-    CorpusScore a = scoreFile(scorer, refMap, fileA, systems == null ? null : systems.get(0), options);
-    CorpusScore b = scoreFile(scorer, refMap, fileB, systems == null ? null : systems.get(1), options);
+    long[] hypRows = new long[2];
+    CorpusScore a = scoreFile(scorer, refMap, fileA, systems == null ? null : systems.get(0), options, hypRows, 0);
+    CorpusScore b = scoreFile(scorer, refMap, fileB, systems == null ? null : systems.get(1), options, hypRows, 1);
     PairedComparison comparison = PairedComparison.of(a, b, resamples, run.seed, run.effectiveThreads());
     CompareReport.CompareRun report = new CompareReport.CompareRun(refs.toString(), unit, normaliser.describe(),
         new CompareReport.SystemRun(display.get(0), label(fileA, 0), a),
         new CompareReport.SystemRun(display.get(1), label(fileB, 1), b),
-        comparison, run.seed, skipped, warnings);
+        comparison, run.seed, imports.skipped, warnings);
 
-    if (json != null) JsonOutput.write(json, CompareReport.json(report));
-    ScoreCommand.printReport(json, CompareReport.text(report));
+    json.write(CompareReport.json(report), spec.commandLine().getOut());
+    ScoreCommand.printReport(spec, json.file, CompareReport.text(report));
+    history.record(recorded(display.get(0), fileA, hypRows[0], a, warnings, normaliser, refMap.size()),
+        recorded(display.get(1), fileB, hypRows[1], b, warnings, normaliser, refMap.size()));
     return Main.OK;
+  }
+
+  /** Refuses display names that are not two distinct, non-blank names. */
+  static void checkNames(List<String> display) {
+    if (display.size() != 2 || display.get(0).isBlank() || display.get(1).isBlank() || display.get(0).equals(display.get(1)))
+      throw InputException.option("--names", "'" + String.join(",", display) + "' is not two distinct names", "two names such as baseline,tuned");
+  }
+
+  // One compared system as a run of its own, labelled with its display name; its interval is computed only when recorded.
+  private RunRecord.Builder recorded(
+      String name, Path file, long hypRows, CorpusScore score, List<String> warnings, Normaliser normaliser, int refRows) {
+    return history.run().label(name).warnings(warnings).scored(score).bootstrap(resamples, run.seed, run.effectiveThreads())
+        .unit(normalisation.unit, normaliser.describe()).input(InputFile.HYPOTHESES, file, hypRows)
+        .input(InputFile.REFERENCES, references.refs, refRows).input(InputFile.RULES, normalisation.rules, InputFile.UNKNOWN_ROWS);
   }
 
   // The file, with the system when one file holds both: "dockets.csv system=line-gray".
@@ -128,25 +136,15 @@ public final class CompareCommand implements Callable<Integer> {
     return systems == null ? file.toString() : file + " system=" + systems.get(which);
   }
 
-  private static CorpusScore scoreFile(
-      CorpusScorer scorer, LinkedHashMap<String, Reference> refMap, Path file, String system, ImportOptions options) {
+  // Scores one system; the rows read from its file go to rowsRead[which].
+  private static CorpusScore scoreFile(CorpusScorer scorer, LinkedHashMap<String, Reference> refMap, Path file, String system,
+      ImportOptions options, long[] rowsRead, int which) {
     try (HypothesesReader reader = HypothesesReader.open(file, options)) {
       if (system != null && !reader.hasSystemColumn())
         throw InputException.inFile(file, "--systems needs a 'system' column, which this file does not have", "a column named system");
-      return scorer.score(refMap, system == null ? reader : new SystemFilter(reader, system));
+      CorpusScore score = scorer.score(refMap, system == null ? reader : new SystemFilter(reader, system));
+      rowsRead[which] = reader.rowsRead();
+      return score;
     }
-  }
-
-  private ImportOptions importOptions(List<String> warnings, List<SkippedRow> skipped) {
-    List<FeatureSpec> specs = FeatureSpec.parseList(features);
-    return new ImportOptions(specs, primarySystem, maxBadRows,
-        w -> {
-          warnings.add(w);
-          System.err.println("steelyard: warning: " + w);
-        },
-        s -> {
-          skipped.add(s);
-          System.err.println("steelyard: skipped " + s.file() + ":" + s.line() + ": " + s.reason());
-        });
   }
 }

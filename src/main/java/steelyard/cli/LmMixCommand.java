@@ -1,7 +1,5 @@
 package steelyard.cli;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import it.unimi.dsi.fastutil.doubles.DoubleArrayList;
@@ -17,6 +15,7 @@ import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import steelyard.io.AtomicOutput;
+import steelyard.io.JsonOutput;
 import steelyard.io.InputException;
 import steelyard.lm.BackoffModel;
 import steelyard.lm.LmState;
@@ -53,8 +52,7 @@ public final class LmMixCommand implements Callable<Integer> {
   @Option(names = "--out", required = true, paramLabel = "FILE", description = "Mixed model: .arpa, .arpa.gz or .bin.")
   Path out;
 
-  @Option(names = "--json", paramLabel = "FILE", description = "Write the report as JSON ('-' = stdout).")
-  Path json;
+  @Mixin JsonOutputOption json;
 
   @Override
   public Integer call() {
@@ -63,9 +61,10 @@ public final class LmMixCommand implements Callable<Integer> {
     List<Path> inputs = new ArrayList<>(models);
     inputs.add(text);
     AtomicOutput.refuseOverwritingInput(out, inputs.toArray(new Path[0]));
-    if (json != null) AtomicOutput.refuseOverwritingInput(json, inputs.toArray(new Path[0]));
+    if (json.file != null) AtomicOutput.refuseOverwritingInput(json.file, inputs.toArray(new Path[0]));
     List<BackoffModel> comps = new ArrayList<>();
-    for (Path m : models) comps.add(ModelFiles.loadExact(m));
+    ModelFiles.LoadOptions loading = new ModelFiles.LoadOptions(BackoffModel.DEFAULT_UNKNOWN_FLOOR_LOG10, w -> LmModelInput.warn(err, w), null);
+    for (Path m : models) comps.add(ModelFiles.loadExact(m, loading));
     double[] start = new double[comps.size()];
     java.util.Arrays.fill(start, 1.0 / comps.size());
     MixtureModel uniform = new MixtureModel(comps, start);
@@ -81,8 +80,8 @@ public final class LmMixCommand implements Callable<Integer> {
     ModelFiles.save(approx, out);
 
     ObjectNode report = report(fit, exact, written);
-    if (json != null) AtomicOutput.writeText(json, w -> w.write(new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT).writeValueAsString(report) + "\n"));
-    if (json == null || !json.toString().equals("-")) printText(fit, exact, written);
+    json.write(report, spec.commandLine().getOut());
+    if (!json.toStdout()) printText(fit, exact, written);
     return 0;
   }
 
@@ -127,7 +126,7 @@ public final class LmMixCommand implements Callable<Integer> {
   }
 
   private ObjectNode report(MixtureWeights.Fit fit, PerplexityResult exact, PerplexityResult written) {
-    ObjectNode o = new ObjectMapper().createObjectNode();
+    ObjectNode o = JsonOutput.object();
     ArrayNode comps = o.putArray("components");
     for (int i = 0; i < models.size(); i++) {
       ObjectNode c = comps.addObject();

@@ -6,12 +6,12 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.function.Function;
-import me.tongfei.progressbar.ConsoleProgressBarConsumer;
 import me.tongfei.progressbar.ProgressBar;
 import me.tongfei.progressbar.ProgressBarBuilder;
 import picocli.CommandLine;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
-import steelyard.io.AtomicOutput;
+import picocli.CommandLine.Spec;
 import steelyard.io.InputException;
 import steelyard.io.InputFiles;
 import steelyard.lm.BackoffModel;
@@ -19,21 +19,40 @@ import steelyard.lm.CompactModel;
 import steelyard.lm.LanguageModel;
 import steelyard.lm.LoadProgress;
 import steelyard.lm.ModelFiles;
+import steelyard.lm.ModelText;
 import steelyard.text.NormalisationOptions;
 import steelyard.text.Normaliser;
 import steelyard.text.Unit;
 
-/** Options of the commands that read one model: {@code --lm}, {@code --unk-log10}, {@code --progress}. */
+/**
+ * Options of the commands that read one model: {@code --lm}, {@code --oov-log10-prob}, {@code --progress}. The
+ * {@code lm} commands require {@code --lm} ({@link #require}); {@code rescore} and {@code network} need it only
+ * when a weight uses the model.
+ */
 public final class LmModelInput {
-  @Option(names = "--lm", required = true, paramLabel = "FILE", description = "Model file: .arpa, .arpa.gz or .bin.")
+  @Spec(Spec.Target.MIXEE) CommandSpec mixee;
+
+  @Option(names = "--lm", paramLabel = "FILE",
+      description = "Model file: .arpa, .arpa.gz or .bin (rescore and network: needed when λ, ω or λ′ is not 0).")
   public Path lm;
 
-  @Option(names = "--unk-log10", paramLabel = "X", defaultValue = "-7",
-      description = "log10 probability of out-of-vocabulary tokens for a model without <unk> (closed vocabulary). Default ${DEFAULT-VALUE}.")
+  @Option(names = "--oov-log10-prob", paramLabel = "X", defaultValue = "-7",
+      description = "log10 probability of an out-of-vocabulary token when the model lists no <unk> (closed vocabulary). Default ${DEFAULT-VALUE}.")
   public double unknownLog10;
 
   @Option(names = "--progress", description = "Show loading progress on stderr (default: only when attached to a console).")
   public boolean progress;
+
+  /** The model file; a usage error (as for a missing required option) when none is given. */
+  public Path require() {
+    if (lm == null) throw new CommandLine.ParameterException(mixee.commandLine(), "Missing required option: '--lm=FILE'");
+    return lm;
+  }
+
+  /** How a rescoring session loads the model: this floor, progress on {@code err}; warnings left to the session. */
+  ModelFiles.LoadOptions sessionLoading(PrintWriter err) {
+    return new ModelFiles.LoadOptions(unknownLog10, null, ConsoleProgress.wanted(progress) ? new Bar(err) : null);
+  }
 
   /** The model as the compact query engine. */
   public CompactModel load(PrintWriter err) {
@@ -46,13 +65,13 @@ public final class LmModelInput {
   }
 
   private ModelFiles.LoadOptions options(PrintWriter err) {
-    boolean show = progress || System.console() != null;
-    return new ModelFiles.LoadOptions(unknownLog10, w -> warn(err, w), show ? new Bar() : null);
+    return new ModelFiles.LoadOptions(unknownLog10, w -> warn(err, w), ConsoleProgress.wanted(progress) ? new Bar(err) : null);
   }
 
   /**
-   * The tokenizer for held-out text: the model's recorded unit and normalisation (plus the user's rules file,
-   * which a model cannot record); a warning when the user's own normalisation options differ from the model's.
+   * The tokenizer for held-out text, by the one rule of {@link ModelText} (the model's recorded unit and
+   * normalisation plus the user's rules file); a warning when the user's own normalisation options differ from
+   * the model's.
    */
   static Function<String, List<String>> tokenizer(LanguageModel lm, NormalisationInput user, CommandLine.ParseResult parsed, PrintWriter err) {
     NormalisationOptions mine = user.options();
@@ -68,9 +87,7 @@ public final class LmModelInput {
           + ") differ from the model's (" + lm.unit().name().toLowerCase(java.util.Locale.ROOT) + ", " + LmInfoCommand.describe(model)
           + "); the text is normalised as the model was trained");
     }
-    NormalisationOptions used = new NormalisationOptions(model.foldCase(), model.stripPunctuation(), model.splitHyphens(),
-        model.ignoreWhitespace(), user.rules != null ? user.rules : model.rulesFile());
-    Normaliser normaliser = Normaliser.create(used);
+    Normaliser normaliser = ModelText.normaliser(lm, user.rules);
     Unit unit = lm.unit();
     return raw -> normaliser.tokenList(raw, unit);
   }
@@ -97,19 +114,19 @@ public final class LmModelInput {
     err.flush();
   }
 
-  /** Writes UTF-8 text atomically to {@code target}, or to stdout when it is {@code -}. */
-  static void writeText(Path target, AtomicOutput.WriterBody body) {
-    AtomicOutput.writeText(target, body);
-  }
-
-  /** Progress on stderr. */
+  /** Progress on the command's stderr. */
   private static final class Bar implements LoadProgress {
+    private final PrintWriter err;
     private ProgressBar bar;
+
+    Bar(PrintWriter err) {
+      this.err = err;
+    }
 
     @Override
     public void start(long total) {
       bar = new ProgressBarBuilder().setTaskName("reading n-grams").setInitialMax(total)
-          .setConsumer(new ConsoleProgressBarConsumer(System.err)).setUpdateIntervalMillis(250).build();
+          .setConsumer(new ConsoleProgress(err)).setUpdateIntervalMillis(250).build();
     }
 
     @Override

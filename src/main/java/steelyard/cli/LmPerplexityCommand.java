@@ -1,7 +1,5 @@
 package steelyard.cli;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.PrintWriter;
 import java.nio.file.Path;
@@ -11,6 +9,7 @@ import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
+import steelyard.io.JsonOutput;
 import steelyard.lm.CompactModel;
 import steelyard.lm.eval.Perplexity;
 import steelyard.lm.eval.PerplexityResult;
@@ -25,22 +24,22 @@ public final class LmPerplexityCommand implements Callable<Integer> {
   @Option(names = "--text", required = true, paramLabel = "FILE", description = "Held-out text, one sentence per line (.gz accepted).")
   Path text;
 
-  @Option(names = "--json", paramLabel = "FILE", description = "Write the figures as JSON to FILE ('-' = stdout, instead of the text form).")
-  Path json;
+  @Mixin JsonOutputOption json;
 
   @Override
   public Integer call() {
+    input.require();
     PrintWriter err = spec.commandLine().getErr();
-    if (json != null) steelyard.io.AtomicOutput.refuseOverwritingInput(json, input.lm, text);
+    if (json.file != null) steelyard.io.AtomicOutput.refuseOverwritingInput(json.file, input.lm, text);
     CompactModel lm = input.load(err);
     var tokenizer = LmModelInput.tokenizer(lm, normalisation, spec.commandLine().getParseResult(), err);
     Perplexity ppl = new Perplexity(lm);
     LmModelInput.forEachSentence(text, tokenizer, ppl::add);
     PerplexityResult r = ppl.result();
-    if (json != null) {
+    if (json.file != null) {
       ObjectNode o = json(r);
-      LmModelInput.writeText(json, w -> w.write(new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT).writeValueAsString(o) + "\n"));
-      if (json.toString().equals("-")) return 0;
+      json.write(o, spec.commandLine().getOut());
+      if (json.toStdout()) return 0;
     }
     PrintWriter out = spec.commandLine().getOut();
     out.printf(Locale.ROOT, "sentences   %d%n", r.sentences());
@@ -54,7 +53,7 @@ public final class LmPerplexityCommand implements Callable<Integer> {
   }
 
   private ObjectNode json(PerplexityResult r) {
-    ObjectNode o = new ObjectMapper().createObjectNode();
+    ObjectNode o = JsonOutput.object();
     o.put("model", input.lm.toString());
     o.put("text", text.toString());
     o.put("sentences", r.sentences());

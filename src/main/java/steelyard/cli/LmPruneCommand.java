@@ -1,7 +1,5 @@
 package steelyard.cli;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.PrintWriter;
@@ -16,6 +14,7 @@ import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import steelyard.io.AtomicOutput;
+import steelyard.io.JsonOutput;
 import steelyard.io.InputException;
 import steelyard.lm.BackoffModel;
 import steelyard.lm.LanguageModel;
@@ -43,17 +42,17 @@ public final class LmPruneCommand implements Callable<Integer> {
   @Option(names = "--out", required = true, paramLabel = "FILE", description = "Pruned model: .arpa, .arpa.gz or .bin.")
   Path out;
 
-  @Option(names = "--json", paramLabel = "FILE", description = "Write the report as JSON ('-' = stdout).")
-  Path json;
+  @Mixin JsonOutputOption json;
 
   @Override
   public Integer call() {
+    input.require();
     PrintWriter err = spec.commandLine().getErr();
     if (!(threshold >= 0) || Double.isInfinite(threshold))
       throw InputException.option("--threshold", "'" + threshold + "' is not a finite number >= 0", "a relative-entropy threshold such as 1e-7");
     Path[] inputs = text == null ? new Path[] {input.lm} : new Path[] {input.lm, text};
     AtomicOutput.refuseOverwritingInput(out, inputs);
-    if (json != null) AtomicOutput.refuseOverwritingInput(json, inputs);
+    if (json.file != null) AtomicOutput.refuseOverwritingInput(json.file, inputs);
     BackoffModel model = input.loadExact(err);
     if (model.metadata().stream().anyMatch(l -> l.replace(" ", "").endsWith("smoothing=mkn"))) {
       LmModelInput.warn(err, "this is a modified Kneser-Ney model; Kneser-Ney models lose more under heavy entropy pruning "
@@ -71,8 +70,8 @@ public final class LmPruneCommand implements Callable<Integer> {
       after = perplexity(r.model(), sentences);
     }
     ObjectNode report = report(r, before, after);
-    if (json != null) AtomicOutput.writeText(json, w -> w.write(new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT).writeValueAsString(report) + "\n"));
-    if (json == null || !json.toString().equals("-")) printText(r, before, after);
+    json.write(report, spec.commandLine().getOut());
+    if (!json.toStdout()) printText(r, before, after);
     return 0;
   }
 
@@ -84,7 +83,7 @@ public final class LmPruneCommand implements Callable<Integer> {
   }
 
   private ObjectNode report(EntropyPruner.Result r, PerplexityResult before, PerplexityResult after) {
-    ObjectNode o = new ObjectMapper().createObjectNode();
+    ObjectNode o = JsonOutput.object();
     o.put("model", input.lm.toString());
     o.put("threshold_nats", threshold);
     ArrayNode orders = o.putArray("orders");

@@ -1,6 +1,8 @@
 package steelyard.cli;
 
+import java.io.OutputStreamWriter;
 import java.io.PrintWriter;
+import java.nio.charset.StandardCharsets;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import steelyard.io.InputException;
@@ -23,6 +25,7 @@ import steelyard.io.InputException;
       LmCommand.class,
       RescoreCommand.class,
       NetworkCommand.class,
+      RunsCommand.class,
       DemoDataCommand.class,
       CommandLine.HelpCommand.class
     })
@@ -50,9 +53,17 @@ public final class Main implements Runnable {
   /** The configured command line, with the project's exit codes and error printing. */
   public static CommandLine commandLine() {
     CommandLine cl = new CommandLine(new Main());
+    OldSpellings.install(cl);
+    cl.setExecutionStrategy(parsed -> {
+      OldSpellings.warnAboutCommands(parsed);
+      return new CommandLine.RunLast().execute(parsed);
+    });
     cl.setExecutionExceptionHandler(Main::handleExecutionException);
     cl.setParameterExceptionHandler(Main::handleParameterException);
     cl.setCaseInsensitiveEnumValuesAllowed(true);
+    // Every command prints through these (never System.out/err), in UTF-8 whatever the platform charset.
+    cl.setOut(new PrintWriter(new OutputStreamWriter(System.out, StandardCharsets.UTF_8), true));
+    cl.setErr(new PrintWriter(new OutputStreamWriter(System.err, StandardCharsets.UTF_8), true));
     return cl;
   }
 

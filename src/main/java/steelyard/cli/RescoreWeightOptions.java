@@ -1,14 +1,20 @@
 package steelyard.cli;
 
+import java.nio.file.Path;
 import java.util.LinkedHashMap;
-import java.util.List;
 import java.util.Map;
 import picocli.CommandLine.Option;
 import steelyard.io.InputException;
 import steelyard.rescore.WeightsSpec;
 
-/** The weight options of {@code rescore}; each is "not given" unless used, so a weights file can supply it. */
+/**
+ * The weights layers of the rescoring commands: {@code --weights FILE} (the lower layer) and one option per
+ * weight (the upper layer); each weight is "not given" unless used, so the weights file can supply it.
+ */
 public final class RescoreWeightOptions {
+  @Option(names = "--weights", paramLabel = "FILE", description = "Weights file (JSON) to start from; options given here override it.")
+  public Path weightsFile;
+
   @Option(names = "--weight", paramLabel = "NAME=V", description = "Weight of a feature column (repeatable; default 1 for every listed feature).")
   Map<String, String> features = new LinkedHashMap<>();
 
@@ -21,7 +27,7 @@ public final class RescoreWeightOptions {
   @Option(names = "--length-weight", paramLabel = "μ", description = "Added per token; negative penalises long hypotheses (default 0).")
   Double lengthWeight;
 
-  @Option(names = "--posterior-scale", paramLabel = "α", description = "Multiplies totals before the softmax (default 1).")
+  @Option(names = "--posterior-sharpness", paramLabel = "α", description = "Sharpness of the posteriors: totals are multiplied by α before the softmax; above 1 sharper, below 1 flatter (default 1).")
   Double posteriorScale;
 
   @Option(names = "--system-weight", paramLabel = "NAME=V", description = "Weight of a system when mixing posteriors (repeatable; default equal).")
@@ -46,15 +52,13 @@ public final class RescoreWeightOptions {
       description = "Feature column (one of --features) whose natural-log confidence weighs each hypothesis's vote in consensus/lattice.")
   String voteConfidence;
 
-  /** The options as a partial weights spec; {@code --weight} names must be among {@code featureNames}. */
-  WeightsSpec spec(List<String> featureNames) {
+  /**
+   * The options as a partial weights spec (the upper layer of a {@link steelyard.rescore.RescoreConfig}, which
+   * checks that {@code --weight} and {@code --vote-confidence} name features of the run).
+   */
+  WeightsSpec spec() {
     WeightsSpec s = new WeightsSpec();
-    for (Map.Entry<String, String> e : features.entrySet()) {
-      if (!featureNames.contains(e.getKey()))
-        throw InputException.option("--weight", "unknown weight name '" + e.getKey() + "'",
-            "one of the --features columns: " + String.join(", ", featureNames));
-      s.features.put(e.getKey(), finite("--weight " + e.getKey(), e.getValue()));
-    }
+    for (Map.Entry<String, String> e : features.entrySet()) s.features.put(e.getKey(), finite("--weight " + e.getKey(), e.getValue()));
     for (Map.Entry<String, String> e : systems.entrySet()) {
       double v = finite("--system-weight " + e.getKey(), e.getValue());
       if (!(v > 0)) throw InputException.option("--system-weight", e.getKey() + " is " + v, "a weight > 0");
@@ -63,17 +67,14 @@ public final class RescoreWeightOptions {
     s.lmWeight = check("--lm-weight", lmWeight);
     s.oovWeight = check("--oov-weight", oovWeight);
     s.lengthWeight = check("--length-weight", lengthWeight);
-    s.posteriorScale = check("--posterior-scale", posteriorScale);
+    s.posteriorScale = check("--posterior-sharpness", posteriorScale);
     if (posteriorScale != null && !(posteriorScale > 0))
-      throw InputException.option("--posterior-scale", "is " + posteriorScale, "a number > 0");
+      throw InputException.option("--posterior-sharpness", "is " + posteriorScale, "a number > 0");
     s.latticeLmWeight = check("--lattice-lm-weight", latticeLmWeight);
     s.latticeLengthWeight = check("--lattice-length-weight", latticeLengthWeight);
     s.mbrMaxHypotheses = positive("--mbr-max-hyps", mbrMaxHyps);
     s.beam = positive("--beam", beam);
     s.latticeMaxHypotheses = positive("--lattice-max-hyps", latticeMaxHyps);
-    if (voteConfidence != null && !featureNames.contains(voteConfidence))
-      throw InputException.option("--vote-confidence", "unknown feature name '" + voteConfidence + "'",
-          "one of the --features columns: " + String.join(", ", featureNames));
     s.voteConfidence = voteConfidence;
     return s;
   }

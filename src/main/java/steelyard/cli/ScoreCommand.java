@@ -1,9 +1,6 @@
 package steelyard.cli;
 
-import java.io.OutputStreamWriter;
-import java.io.PrintStream;
 import java.io.PrintWriter;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -20,13 +17,14 @@ import steelyard.eval.CorpusScorer;
 import steelyard.eval.MissingHypothesisPolicy;
 import steelyard.eval.Pick;
 import steelyard.eval.SystemFilter;
+import steelyard.history.InputFile;
 import steelyard.io.AtomicOutput;
 import steelyard.io.HypothesesReader;
 import steelyard.io.ImportOptions;
 import steelyard.io.InputException;
 import steelyard.io.Reference;
 import steelyard.io.ReferencesReader;
-import steelyard.report.JsonOutput;
+import steelyard.io.JsonOutput;
 import steelyard.report.OutputPaths;
 import steelyard.report.ScoreContext;
 import steelyard.report.ScoreReport;
@@ -52,9 +50,10 @@ public final class ScoreCommand implements Callable<Integer> {
   @Mixin HypothesesInput hypotheses;
   @Mixin NormalisationInput normalisation;
   @Mixin RunInput run;
+  @Mixin HistoryOption history;
+  @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
-  @Option(names = "--refs", required = true, paramLabel = "FILE", description = "References CSV (utt_id,text[,group]; .gz accepted).")
-  Path refs;
+  @Mixin ReferencesInput references;
 
   @Option(names = "--system", paramLabel = "NAME",
       description = "Score only this value of the system column (its own smallest rank is its pick).")
@@ -75,8 +74,7 @@ public final class ScoreCommand implements Callable<Integer> {
   @Option(names = "--top", paramLabel = "K", defaultValue = "10", description = "How many frequent substitutions, deletions and insertions to list (default ${DEFAULT-VALUE}).")
   int top;
 
-  @Option(names = "--json", paramLabel = "FILE|-", description = "Write the JSON summary to FILE, or to stdout with '-'.")
-  Path json;
+  @Mixin JsonOutputOption json;
 
   @Option(names = "--csv", paramLabel = "FILE|-", description = "Write the per-utterance table as CSV to FILE, or to stdout with '-'.")
   Path csv;
@@ -87,42 +85,52 @@ public final class ScoreCommand implements Callable<Integer> {
 
   @Override
   public Integer call() {
+    Path refs = references.require();
     checkOptions(pick, resamples, top);
     LinkedHashMap<String, Path> outputs = new LinkedHashMap<>();
-    outputs.put("--json", json);
+    outputs.put("--json", json.file);
     outputs.put("--csv", csv);
     OutputPaths.refuseClashes(outputs, Arrays.asList(hypotheses.hyps, refs, normalisation.rules));
 
     List<String> warnings = new ArrayList<>();
-    ImportOptions options = collecting(hypotheses.importOptions(), warnings);
+    ImportOptions options = hypotheses.imports.importOptions(spec.commandLine().getErr(), w -> {
+      synchronized (warnings) {
+        warnings.add(w);
+      }
+    });
     Normaliser normaliser = Normaliser.create(normalisation.options());
     Unit unit = normalisation.unit;
     LinkedHashMap<String, Reference> refMap = ReferencesReader.readAll(refs, withoutFeatures(options));
     CorpusScorer scorer = new CorpusScorer(raw -> normaliser.tokens(raw, unit),
         new CorpusScorer.Settings(pick, missing, top, csv != null));
     CorpusScore score;
+    long hypRows;
     try (HypothesesReader reader = HypothesesReader.open(hypotheses.hyps, options)) {
       if (system != null && !reader.hasSystemColumn())
         throw InputException.inFile(hypotheses.hyps, "--system needs a 'system' column, which this file does not have", "a column named system");
       score = scorer.score(refMap, system == null ? reader : new SystemFilter(reader, system));
+      hypRows = reader.rowsRead();
     }
     Bootstrap.Interval ci = Bootstrap.corpusRate(score.table().includedErrors(), score.table().includedReferenceTokens(),
         resamples, run.seed, run.effectiveThreads());
     String source = system == null ? hypotheses.hyps.toString() : hypotheses.hyps + " system=" + system;
     ScoreContext context = new ScoreContext(source, refs.toString(), unit,
         normaliser.describe(), normaliser.ruleUsage(), run.seed, resamples, ci,
-        hypotheses.skipped, warnings);
+        hypotheses.skipped(), warnings);
 
-    if (csv != null) AtomicOutput.writeText(csv, out -> ScoreReport.csv(score, out, spreadsheetSafe));
-    if (json != null) JsonOutput.write(json, ScoreReport.json(score, context));
-    printReport(OutputPaths.isStdout(csv) ? csv : json, ScoreReport.text(score, context));
+    PrintWriter stdout = spec.commandLine().getOut();
+    if (csv != null) AtomicOutput.writeText(csv, stdout, out -> ScoreReport.csv(score, out, spreadsheetSafe));
+    json.write(ScoreReport.json(score, context), stdout);
+    printReport(spec, OutputPaths.isStdout(csv) ? csv : json.file, ScoreReport.text(score, context));
+    history.record(history.run().warnings(warnings).scored(score).interval(ci, resamples, run.seed).unit(unit, normaliser.describe())
+        .label(system).input(InputFile.HYPOTHESES, hypotheses.hyps, hypRows).input(InputFile.REFERENCES, refs, refMap.size())
+        .input(InputFile.RULES, normalisation.rules, InputFile.UNKNOWN_ROWS));
     return Main.OK;
   }
 
-  /** Prints a text report in UTF-8 whatever the platform charset: to stdout, or to stderr when {@code other} is stdout. */
-  static void printReport(Path other, String text) {
-    PrintStream target = OutputPaths.isStdout(other) ? System.err : System.out;
-    PrintWriter w = new PrintWriter(new OutputStreamWriter(target, StandardCharsets.UTF_8));
+  /** Prints a text report to the command's stdout, or to its stderr when {@code other} is stdout. */
+  static void printReport(CommandLine.Model.CommandSpec spec, Path other, String text) {
+    PrintWriter w = OutputPaths.isStdout(other) ? spec.commandLine().getErr() : spec.commandLine().getOut();
     w.print(text);
     w.flush();
   }
@@ -133,18 +141,6 @@ public final class ScoreCommand implements Callable<Integer> {
     if (resamples < 1 || resamples > MAX_RESAMPLES)
       throw InputException.option("--resamples", "must be between 1 and " + MAX_RESAMPLES + ", got " + resamples, "a number such as 1000");
     if (top < 0) throw InputException.option("--top", "must not be negative, got " + top, "0 or more");
-  }
-
-  /** The same import options, with warnings also collected for the JSON summary. */
-  static ImportOptions collecting(ImportOptions base, List<String> sink) {
-    return new ImportOptions(base.features(), base.primarySystem(), base.maxBadRows(),
-        w -> {
-          synchronized (sink) {
-            sink.add(w);
-          }
-          base.warnings().accept(w);
-        },
-        base.skipped());
   }
 
   /** The same options with no feature columns (a references file has none). */
