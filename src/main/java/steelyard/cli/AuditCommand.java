@@ -80,6 +80,8 @@ public final class AuditCommand implements Callable<Integer> {
     if (references.refs != null) {
       RescoreSupport.record(history, session, new RescoreSupport.InputsUsed(input.hyps, references.refs, normalisation.rules,
           weightOptions.weightsFile), r.summary(), r.ci95(), run.seed);
+    } else if (history.file != null) {
+      RescoreSupport.warn(err, "run not recorded in the history: --history records audits with --refs only");
     }
     return Main.OK;
   }
