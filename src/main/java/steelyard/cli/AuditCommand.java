@@ -19,7 +19,6 @@ import steelyard.report.AuditOutputs;
 import steelyard.report.AuditRun;
 import steelyard.report.ReportSections;
 import steelyard.report.html.ReportModel;
-import steelyard.rescore.RescoreMethod;
 import steelyard.rescore.RescoreSession;
 import steelyard.text.Unit;
 
@@ -46,12 +45,7 @@ public final class AuditCommand implements Callable<Integer> {
   @Mixin NormalisationInput normalisation;
   @Mixin RunInput run;
 
-  @Option(names = "--method", paramLabel = "nbest|mbr|consensus|lattice",
-      description = "How to choose (as in rescore). Default: the method the --weights file was tuned for, else nbest.")
-  RescoreMethod method;
-
-  @Option(names = "--max-hyps", paramLabel = "N", defaultValue = "0", description = "Keep at most N hypotheses per system, by rank (0 = all).")
-  int maxHyps;
+  @Mixin RescoreChoiceOptions choice;
 
   @Option(names = "--out", required = true, paramLabel = "FILE",
       description = "An output, repeatable; the format follows the name: .json, .csv or .html. '-' writes to stdout in the --stdout-format.")
@@ -70,13 +64,12 @@ public final class AuditCommand implements Callable<Integer> {
 
   @Override
   public Integer call() {
-    if (maxHyps < 0) throw InputException.option("--max-hyps", "is " + maxHyps, "0 (all) or a positive number");
     if (run.threads < 0) throw InputException.option("--threads", "is " + run.threads, "0 (all cores) or a positive number");
     AuditOutputs outputs = AuditOutputs.plan("--out", outs, stdoutFormat,
         Arrays.asList(input.hyps, model.lm, references.refs, weightOptions.weightsFile, normalisation.rules));
     PrintWriter err = spec.commandLine().getErr();
     RescoreSession session = RescoreSession.open(
-        RescoreSupport.config(spec, input, normalisation, model, weightOptions).method(method).maxHyps(maxHyps).build());
+        choice.apply(RescoreSupport.config(spec, input, normalisation, model, weightOptions)).build());
     session.warnings().forEach(w -> RescoreSupport.warn(err, w));
     int threads = run.effectiveThreads();
     AuditRun.Result r = AuditRun.run(session, input.hyps, references.refs, threads, run.seed, RescoreSession.LoadListener.NONE, () -> false);
@@ -87,6 +80,8 @@ public final class AuditCommand implements Callable<Integer> {
     if (references.refs != null) {
       RescoreSupport.record(history, session, new RescoreSupport.InputsUsed(input.hyps, references.refs, normalisation.rules,
           weightOptions.weightsFile), r.summary(), r.ci95(), run.seed);
+    } else if (history.file != null) {
+      RescoreSupport.warn(err, "run not recorded in the history: --history records audits with --refs only");
     }
     return Main.OK;
   }

@@ -13,7 +13,6 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import steelyard.io.InputException;
 import steelyard.report.OutputPaths;
-import steelyard.rescore.RescoreMethod;
 import steelyard.rescore.RescoreRun;
 import steelyard.rescore.RescoreSession;
 
@@ -36,13 +35,7 @@ public final class RescoreCommand implements Callable<Integer> {
 
   @Mixin LmModelInput model;
 
-  @Option(names = "--method", paramLabel = "nbest|mbr|consensus|lattice",
-      description = "How to choose: best total, minimum expected errors, consensus of the confusion network, or LM search over it. "
-          + "Default: the method the --weights file was tuned for, else nbest.")
-  RescoreMethod method;
-
-  @Option(names = "--max-hyps", paramLabel = "N", defaultValue = "0", description = "Keep at most N hypotheses per system, by rank (0 = all).")
-  int maxHyps;
+  @Mixin RescoreChoiceOptions choice;
 
 
   @Option(names = "--save-weights", paramLabel = "FILE", description = "Write the weights in effect to this file (JSON).")
@@ -61,7 +54,6 @@ public final class RescoreCommand implements Callable<Integer> {
 
   @Override
   public Integer call() {
-    if (maxHyps < 0) throw InputException.option("--max-hyps", "is " + maxHyps, "0 (all) or a positive number");
     if (run.threads < 0) throw InputException.option("--threads", "is " + run.threads, "0 (all cores) or a positive number");
     Path picks = out != null ? out : (json.file == null ? Path.of("-") : null);
     Map<String, Path> outputs = new LinkedHashMap<>();
@@ -73,7 +65,7 @@ public final class RescoreCommand implements Callable<Integer> {
 
     PrintWriter err = spec.commandLine().getErr();
     RescoreSession session = RescoreSession.open(
-        RescoreSupport.config(spec, input, normalisation, model, weightOptions).method(method).maxHyps(maxHyps).build());
+        choice.apply(RescoreSupport.config(spec, input, normalisation, model, weightOptions)).build());
     session.warnings().forEach(w -> RescoreSupport.warn(err, w));
     RescoreRun.Result result = RescoreRun.run(session, input.hyps, references.refs, new RescoreRun.Outputs(picks, breakdown, json.file, saveWeights),
         run.effectiveThreads(), run.seed, input.skipped(), spec.commandLine().getOut());

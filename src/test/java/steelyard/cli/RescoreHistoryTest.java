@@ -30,24 +30,15 @@ class RescoreHistoryTest {
 
   @Test
   void aRecordedRescoreIsListedAndItsWeightsReproduceThePicksByteForByte() throws IOException {
-    String hyps = "sample-hypotheses/voice-dev.nbest.csv";
-    String refs = "sample-hypotheses/voice-dev.refs.csv";
-    String rules = "sample-hypotheses/voice.rules";
-    String lm = "models/voice-3gram.arpa.gz";
     Path db = dir.resolve("runs.db");
     Path picks = dir.resolve("picks.csv");
-    ok("rescore", "--hyps", hyps, "--refs", refs, "--rules", rules, "--lm", lm, "--features", "acoustic,lm", "--lm-weight", "16",
+    ok("rescore", "--hyps", RescoreFixtures.VOICE_DEV, "--refs", "sample-hypotheses/voice-dev.refs.csv", "--rules",
+        RescoreFixtures.VOICE_RULES, "--lm", RescoreFixtures.VOICE_LM, "--features", "acoustic,lm", "--lm-weight", "16",
         "--length-weight", "8", "--out", picks.toString(), "--history", db.toString());
     assertThat(ok("runs", "list", "--history", db.toString()).out()).contains("rescore").contains("nbest");
     Path back = dir.resolve("back.json");
     ok("runs", "weights", "1", "--history", db.toString(), "--out", back.toString());
-    Path again = dir.resolve("again.csv");
-    ok("rescore", "--hyps", hyps, "--rules", rules, "--lm", lm, "--weights", back.toString(), "--out", again.toString());
-    assertThat(Files.readAllBytes(again)).isEqualTo(Files.readAllBytes(picks));
-    // Not vacuous: the default weights pick otherwise.
-    Path plain = dir.resolve("plain.csv");
-    ok("rescore", "--hyps", hyps, "--rules", rules, "--lm", lm, "--features", "acoustic,lm", "--out", plain.toString());
-    assertThat(Files.readAllBytes(plain)).isNotEqualTo(Files.readAllBytes(picks));
+    RescoreFixtures.assertVoiceDevWeightsReproduce(dir, back, picks);
   }
 
   /**
