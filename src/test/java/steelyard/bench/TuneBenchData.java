@@ -30,18 +30,36 @@ public final class TuneBenchData {
   private TuneBenchData() {}
 
   public static TuneInput make(int utterances, int perUtterance, long seed) {
-    SplittableRandom rnd = new SplittableRandom(seed);
-    int[][] successors = new int[VOCAB][8];
-    for (int[] s : successors) for (int j = 0; j < 8; j++) s[j] = rnd.nextInt(VOCAB);
-    BackoffModel lm = LatticeBenchmark.countedTrigramModel(rnd, successors, 300_000);
     Map<String, String> interned = new HashMap<>();
     Tokenizer words = raw -> {
       List<String> t = new ArrayList<>();
       for (String w : raw.split(" ")) if (!w.isEmpty()) t.add(interned.computeIfAbsent(w, x -> x));
       return new TokenSequence(t, new boolean[t.size()]);
     };
-    HypothesisScorer scorer = new HypothesisScorer(lm, words, words, FEATURES.size(), 0);
     List<DevUtterance> dev = new ArrayList<>(utterances);
+    HypothesisScorer[] scorer = new HypothesisScorer[1];
+    BackoffModel lm = generate(utterances, perUtterance, seed, model -> scorer[0] = new HypothesisScorer(model, words, words, FEATURES.size(), 0),
+        (u, hyps, ref) -> dev.add(new DevUtterance(scorer[0].score(hyps), words.tokenize(ref), "g" + (u % 10))));
+    return TuneInput.of(dev, FEATURES, lm, RescoreWeights.defaults(FEATURES));
+  }
+
+  /** Receives each generated utterance: its index, its hypotheses (rank order) and its reference text. */
+  @FunctionalInterface
+  public interface Sink {
+    void accept(int index, UtteranceHypotheses hypotheses, String reference);
+  }
+
+  /**
+   * Generates the model (handed to {@code modelReady} before any utterance) and the utterances in order; returns
+   * the model. The same seed gives the same data whatever is done with it.
+   */
+  public static BackoffModel generate(int utterances, int perUtterance, long seed, java.util.function.Consumer<BackoffModel> modelReady,
+      Sink sink) {
+    SplittableRandom rnd = new SplittableRandom(seed);
+    int[][] successors = new int[VOCAB][8];
+    for (int[] s : successors) for (int j = 0; j < 8; j++) s[j] = rnd.nextInt(VOCAB);
+    BackoffModel lm = LatticeBenchmark.countedTrigramModel(rnd, successors, 300_000);
+    modelReady.accept(lm);
     for (int u = 0; u < utterances; u++) {
       List<String> ref = new ArrayList<>();
       int w = rnd.nextInt(VOCAB);
@@ -50,10 +68,9 @@ public final class TuneBenchData {
         w = successors[w][rnd.nextInt(8)];
       }
       String id = "bench-" + u;
-      UtteranceHypotheses hyps = variants(rnd, successors, id, ref, perUtterance);
-      dev.add(new DevUtterance(scorer.score(hyps), words.tokenize(String.join(" ", ref)), "g" + (u % 10)));
+      sink.accept(u, variants(rnd, successors, id, ref, perUtterance), String.join(" ", ref));
     }
-    return TuneInput.of(dev, FEATURES, lm, RescoreWeights.defaults(FEATURES));
+    return lm;
   }
 
   /**
