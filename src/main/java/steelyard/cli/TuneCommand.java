@@ -92,6 +92,7 @@ public final class TuneCommand implements Callable<Integer> {
     outputs.put("--json", json.file);
     outputs.put("--surface", surface);
     OutputPaths.refuseClashes(outputs, Arrays.asList(input.hyps, refs, model.lm, weightOptions.weightsFile, normalisation.rules));
+    OutputPaths.requireWritable(outputs.values());
 
     PrintWriter err = spec.commandLine().getErr();
     RescoreSession session = RescoreSession.open(RescoreSupport.config(spec, input, normalisation, model, weightOptions).build());

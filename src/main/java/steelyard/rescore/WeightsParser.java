@@ -161,7 +161,19 @@ final class WeightsParser {
 
   private TuningRecord.DataFile dataFile() throws IOException {
     expect(JsonToken.START_OBJECT, "an object");
+    FileFields f = fileFields(false);
+    if (f.name() == null || f.bytes() == null || f.sha256() == null)
+      throw fail("a data file needs file, bytes and sha256", "{\"file\": …, \"bytes\": N, \"sha256\": \"…\"}");
+    return new TuningRecord.DataFile(f.name(), f.bytes(), f.sha256());
+  }
+
+  /** The keys that identify a file by content (a model also has its order); null where absent. */
+  private record FileFields(String name, Integer order, Long bytes, String sha256) {}
+
+  /** Reads the fields of the current object: {@code file}, {@code bytes}, {@code sha256} and, when allowed, {@code order}. */
+  private FileFields fileFields(boolean withOrder) throws IOException {
     String name = null;
+    Integer order = null;
     Long bytes = null;
     String sha = null;
     while (nextField()) {
@@ -169,13 +181,16 @@ final class WeightsParser {
       p.nextToken();
       switch (key) {
         case "file": name = string(); break;
+        case "order":
+          if (!withOrder) throw unknownKey(key, "file, bytes, sha256");
+          order = integer(1);
+          break;
         case "bytes": bytes = longValue(); break;
         case "sha256": sha = string(); break;
-        default: throw unknownKey(key, "file, bytes, sha256");
+        default: throw unknownKey(key, withOrder ? "file, order, bytes, sha256" : "file, bytes, sha256");
       }
     }
-    if (name == null || bytes == null || sha == null) throw fail("a data file needs file, bytes and sha256", "{\"file\": …, \"bytes\": N, \"sha256\": \"…\"}");
-    return new TuningRecord.DataFile(name, bytes, sha);
+    return new FileFields(name, order, bytes, sha);
   }
 
   private List<String> names() throws IOException {
@@ -192,24 +207,10 @@ final class WeightsParser {
   private void model() throws IOException {
     if (p.currentToken() == JsonToken.VALUE_NULL) return;
     expect(JsonToken.START_OBJECT, "an object or null");
-    String name = null;
-    Integer order = null;
-    Long bytes = null;
-    String sha = null;
-    while (nextField()) {
-      String key = p.currentName();
-      p.nextToken();
-      switch (key) {
-        case "file": name = string(); break;
-        case "order": order = integer(1); break;
-        case "bytes": bytes = longValue(); break;
-        case "sha256": sha = string(); break;
-        default: throw unknownKey(key, "file, order, bytes, sha256");
-      }
-    }
-    if (order == null || bytes == null || sha == null)
+    FileFields f = fileFields(true);
+    if (f.order() == null || f.bytes() == null || f.sha256() == null)
       throw fail("model needs order, bytes and sha256", "\"model\": {\"file\": …, \"order\": N, \"bytes\": N, \"sha256\": \"…\"}");
-    spec.model = new ModelIdentity(name == null ? "" : name, order, bytes, sha);
+    spec.model = new ModelIdentity(f.name() == null ? "" : f.name(), f.order(), f.bytes(), f.sha256());
   }
 
   private void methods() throws IOException {

@@ -155,7 +155,8 @@ class TuneCommandTest {
     @CsvSource(delimiter = '|', value = {
         "--tune|lm_weight,beam_width|--tune: names 'beam_width'",
         "--folds|1|--folds: is 1; expected 0 (no cross-validation) or 2 or more folds",
-        "--refs|sample-hypotheses/voice-test.refs.csv|--refs: no reference has the utt_id of an utterance with hypotheses"})
+        "--refs|sample-hypotheses/voice-test.refs.csv|--refs: no reference has the utt_id of an utterance with hypotheses",
+        "--json|no-such-folder/tune.json|no-such-folder/tune.json: directory"})
     void exitsTwoWithOneLine(String option, String value, String message, @TempDir Path out) {
       List<String> args = new ArrayList<>(List.of("tune", "--hyps", HYPS));
       args.addAll(List.of(DATA));
