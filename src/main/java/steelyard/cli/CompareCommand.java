@@ -15,16 +15,18 @@ import steelyard.eval.MissingHypothesisPolicy;
 import steelyard.eval.PairedComparison;
 import steelyard.eval.Pick;
 import steelyard.eval.SystemFilter;
+import steelyard.eval.UtteranceOverlap;
 import steelyard.io.FeatureSpec;
 import steelyard.io.HypothesesReader;
 import steelyard.io.ImportOptions;
 import steelyard.io.InputException;
+import steelyard.io.InputFiles;
+import steelyard.io.OutputSet;
 import steelyard.io.Reference;
 import steelyard.io.ReferencesReader;
 import steelyard.io.SkippedRow;
 import steelyard.report.CompareReport;
 import steelyard.report.JsonOutput;
-import steelyard.report.OutputPaths;
 import steelyard.text.Normaliser;
 import steelyard.text.Unit;
 
@@ -99,7 +101,8 @@ public final class CompareCommand implements Callable<Integer> {
     List<Path> inputs = new ArrayList<>(hyps);
     inputs.add(refs);
     inputs.add(normalisation.rules);
-    OutputPaths.refuseClashes(outputs, inputs);
+    OutputSet outputSet = OutputSet.open(outputs, inputs);
+    if (systems != null) InputFiles.requireRereadable(hyps.get(0), "--systems scores it once per system");
 
     List<String> warnings = new ArrayList<>();
     List<SkippedRow> skipped = new ArrayList<>();
@@ -112,6 +115,9 @@ public final class CompareCommand implements Callable<Integer> {
     Path fileB = systems == null ? hyps.get(1) : hyps.get(0);
     CorpusScore a = scoreFile(scorer, refMap, fileA, systems == null ? null : systems.get(0), options);
     CorpusScore b = scoreFile(scorer, refMap, fileB, systems == null ? null : systems.get(1), options);
+    List<String> refIds = new ArrayList<>(refMap.keySet());
+    ScoreCommand.warnAbout(UtteranceOverlap.check(label(fileA, 0), refs, refIds, a.missingHypotheses(), a.missingReferences()), warnings);
+    ScoreCommand.warnAbout(UtteranceOverlap.check(label(fileB, 1), refs, refIds, b.missingHypotheses(), b.missingReferences()), warnings);
     PairedComparison comparison = PairedComparison.of(a, b, resamples, run.seed, run.effectiveThreads());
     CompareReport.CompareRun report = new CompareReport.CompareRun(refs.toString(), unit, normaliser.describe(),
         new CompareReport.SystemRun(display.get(0), label(fileA, 0), a),
@@ -119,6 +125,7 @@ public final class CompareCommand implements Callable<Integer> {
         comparison, run.seed, skipped, warnings);
 
     if (json != null) JsonOutput.write(json, CompareReport.json(report));
+    outputSet.commit();
     ScoreCommand.printReport(json, CompareReport.text(report));
     return Main.OK;
   }
@@ -133,12 +140,15 @@ public final class CompareCommand implements Callable<Integer> {
     try (HypothesesReader reader = HypothesesReader.open(file, options)) {
       if (system != null && !reader.hasSystemColumn())
         throw InputException.inFile(file, "--systems needs a 'system' column, which this file does not have", "a column named system");
-      return scorer.score(refMap, system == null ? reader : new SystemFilter(reader, system));
+      SystemFilter filter = system == null ? null : new SystemFilter(reader, system);
+      CorpusScore score = scorer.score(refMap, filter == null ? reader : filter);
+      if (filter != null) filter.requireSeen("--systems", file);
+      return score;
     }
   }
 
   private ImportOptions importOptions(List<String> warnings, List<SkippedRow> skipped) {
-    List<FeatureSpec> specs = FeatureSpec.parseList(features);
+    List<FeatureSpec> specs = FeatureSpec.parseOption(features);
     return new ImportOptions(specs, primarySystem, maxBadRows,
         w -> {
           warnings.add(w);

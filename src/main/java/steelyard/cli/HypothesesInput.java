@@ -29,7 +29,7 @@ public final class HypothesesInput {
   public final List<SkippedRow> skipped = new ArrayList<>();
 
   public List<FeatureSpec> featureSpecs() {
-    return FeatureSpec.parseList(features);
+    return FeatureSpec.parseOption(features);
   }
 
   /** Import options; warnings and skipped rows go to stderr, skipped rows are also collected. */

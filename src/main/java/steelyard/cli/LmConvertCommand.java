@@ -6,7 +6,7 @@ import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
-import steelyard.io.AtomicOutput;
+import steelyard.io.OutputSet;
 import steelyard.lm.BackoffModel;
 import steelyard.lm.ModelFiles;
 
@@ -22,9 +22,10 @@ public final class LmConvertCommand implements Callable<Integer> {
   @Override
   public Integer call() {
     ModelFiles.kind(out);
-    AtomicOutput.refuseOverwritingInput(out, input.lm);
+    OutputSet outputs = OutputSet.open(java.util.Collections.singletonMap("--out", out), java.util.List.of(input.lm));
     BackoffModel model = input.loadExact(spec.commandLine().getErr());
     ModelFiles.save(model, out);
+    outputs.commit();
     long n = 0;
     for (int k = 1; k <= model.order(); k++) n += model.ngramCount(k);
     spec.commandLine().getOut().println("wrote " + out + ": order " + model.order() + ", " + n + " n-grams, " + model.vocabularySize() + " tokens");

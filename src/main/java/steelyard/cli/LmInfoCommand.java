@@ -11,6 +11,7 @@ import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
+import steelyard.io.OutputSet;
 import steelyard.lm.CompactModel;
 import steelyard.lm.ModelFiles;
 import steelyard.text.NormalisationOptions;
@@ -26,11 +27,12 @@ public final class LmInfoCommand implements Callable<Integer> {
 
   @Override
   public Integer call() {
-    if (json != null) steelyard.io.AtomicOutput.refuseOverwritingInput(json, input.lm);
+    OutputSet outputs = OutputSet.open(java.util.Collections.singletonMap("--json", json), java.util.List.of(input.lm));
     CompactModel lm = input.load(spec.commandLine().getErr());
     ObjectNode o = describe(lm, input.lm);
     if (json != null) {
       LmModelInput.writeText(json, w -> w.write(new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT).writeValueAsString(o) + "\n"));
+      outputs.commit();
       if (json.toString().equals("-")) return 0;
     }
     StringBuilder sb = new StringBuilder();

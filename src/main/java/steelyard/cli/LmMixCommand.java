@@ -18,6 +18,7 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import steelyard.io.AtomicOutput;
 import steelyard.io.InputException;
+import steelyard.io.OutputSet;
 import steelyard.lm.BackoffModel;
 import steelyard.lm.LmState;
 import steelyard.lm.MixtureModel;
@@ -62,16 +63,19 @@ public final class LmMixCommand implements Callable<Integer> {
     if (models.size() < 2) throw InputException.option("--lm", "only " + models.size() + " model given", "at least two --lm files");
     List<Path> inputs = new ArrayList<>(models);
     inputs.add(text);
-    AtomicOutput.refuseOverwritingInput(out, inputs.toArray(new Path[0]));
-    if (json != null) AtomicOutput.refuseOverwritingInput(json, inputs.toArray(new Path[0]));
+    OutputSet outputs = OutputSet.open(LmModelInput.outputs("--out", out, "--json", json), inputs);
     List<BackoffModel> comps = new ArrayList<>();
     for (Path m : models) comps.add(ModelFiles.loadExact(m));
+    String mismatch = StaticMixture.checkCompatible(models, comps);
+    if (mismatch != null) LmModelInput.warn(err, mismatch);
     double[] start = new double[comps.size()];
     java.util.Arrays.fill(start, 1.0 / comps.size());
     MixtureModel uniform = new MixtureModel(comps, start);
     Function<String, List<String>> tokenizer = LmModelInput.tokenizer(uniform, normalisation, spec.commandLine().getParseResult(), err);
     List<List<String>> sentences = new ArrayList<>();
-    LmModelInput.forEachSentence(text, tokenizer, (line, tokens) -> sentences.add(tokens));
+    List<String> warnings = new ArrayList<>();
+    if (mismatch != null) warnings.add(mismatch);
+    LmModelInput.forEachSentence(text, tokenizer, (line, tokens) -> sentences.add(tokens), LmModelInput.warnings(err, warnings));
 
     MixtureWeights.Fit fit = fixedWeights != null ? fixed(comps.size()) : MixtureWeights.fit(componentLogProbs(uniform, sentences), iterations, tolerance);
     MixtureModel mixture = new MixtureModel(comps, fit.weights());
@@ -81,7 +85,9 @@ public final class LmMixCommand implements Callable<Integer> {
     ModelFiles.save(approx, out);
 
     ObjectNode report = report(fit, exact, written);
+    warnings.forEach(report.putArray("warnings")::add);
     if (json != null) AtomicOutput.writeText(json, w -> w.write(new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT).writeValueAsString(report) + "\n"));
+    outputs.commit();
     if (json == null || !json.toString().equals("-")) printText(fit, exact, written);
     return 0;
   }

@@ -11,6 +11,7 @@ import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
+import steelyard.io.OutputSet;
 import steelyard.lm.CompactModel;
 import steelyard.lm.eval.Perplexity;
 import steelyard.lm.eval.PerplexityResult;
@@ -31,15 +32,18 @@ public final class LmPerplexityCommand implements Callable<Integer> {
   @Override
   public Integer call() {
     PrintWriter err = spec.commandLine().getErr();
-    if (json != null) steelyard.io.AtomicOutput.refuseOverwritingInput(json, input.lm, text);
+    OutputSet outputs = OutputSet.open(java.util.Collections.singletonMap("--json", json), java.util.List.of(input.lm, text));
     CompactModel lm = input.load(err);
     var tokenizer = LmModelInput.tokenizer(lm, normalisation, spec.commandLine().getParseResult(), err);
     Perplexity ppl = new Perplexity(lm);
-    LmModelInput.forEachSentence(text, tokenizer, ppl::add);
+    java.util.List<String> warnings = new java.util.ArrayList<>();
+    LmModelInput.forEachSentence(text, tokenizer, ppl::add, LmModelInput.warnings(err, warnings));
     PerplexityResult r = ppl.result();
     if (json != null) {
       ObjectNode o = json(r);
+      warnings.forEach(o.putArray("warnings")::add);
       LmModelInput.writeText(json, w -> w.write(new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT).writeValueAsString(o) + "\n"));
+      outputs.commit();
       if (json.toString().equals("-")) return 0;
     }
     PrintWriter out = spec.commandLine().getOut();

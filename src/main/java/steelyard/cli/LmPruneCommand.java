@@ -17,6 +17,7 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import steelyard.io.AtomicOutput;
 import steelyard.io.InputException;
+import steelyard.io.OutputSet;
 import steelyard.lm.BackoffModel;
 import steelyard.lm.LanguageModel;
 import steelyard.lm.ModelFiles;
@@ -52,8 +53,8 @@ public final class LmPruneCommand implements Callable<Integer> {
     if (!(threshold >= 0) || Double.isInfinite(threshold))
       throw InputException.option("--threshold", "'" + threshold + "' is not a finite number >= 0", "a relative-entropy threshold such as 1e-7");
     Path[] inputs = text == null ? new Path[] {input.lm} : new Path[] {input.lm, text};
-    AtomicOutput.refuseOverwritingInput(out, inputs);
-    if (json != null) AtomicOutput.refuseOverwritingInput(json, inputs);
+    OutputSet outputs = OutputSet.open(LmModelInput.outputs("--out", out, "--json", json), java.util.Arrays.asList(inputs));
+    List<String> warnings = new ArrayList<>();
     BackoffModel model = input.loadExact(err);
     if (model.metadata().stream().anyMatch(l -> l.replace(" ", "").endsWith("smoothing=mkn"))) {
       LmModelInput.warn(err, "this is a modified Kneser-Ney model; Kneser-Ney models lose more under heavy entropy pruning "
@@ -66,12 +67,14 @@ public final class LmPruneCommand implements Callable<Integer> {
     if (text != null) {
       Function<String, List<String>> tokenizer = LmModelInput.tokenizer(model, normalisation, spec.commandLine().getParseResult(), err);
       List<List<String>> sentences = new ArrayList<>();
-      LmModelInput.forEachSentence(text, tokenizer, (line, tokens) -> sentences.add(tokens));
+      LmModelInput.forEachSentence(text, tokenizer, (line, tokens) -> sentences.add(tokens), LmModelInput.warnings(err, warnings));
       before = perplexity(model, sentences);
       after = perplexity(r.model(), sentences);
     }
     ObjectNode report = report(r, before, after);
+    warnings.forEach(report.putArray("warnings")::add);
     if (json != null) AtomicOutput.writeText(json, w -> w.write(new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT).writeValueAsString(report) + "\n"));
+    outputs.commit();
     if (json == null || !json.toString().equals("-")) printText(r, before, after);
     return 0;
   }

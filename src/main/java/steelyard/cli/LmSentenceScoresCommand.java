@@ -8,6 +8,7 @@ import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
+import steelyard.io.OutputSet;
 import steelyard.lm.CompactModel;
 import steelyard.lm.eval.Perplexity;
 import steelyard.lm.eval.SentenceScore;
@@ -29,7 +30,7 @@ public final class LmSentenceScoresCommand implements Callable<Integer> {
   @Override
   public Integer call() {
     PrintWriter err = spec.commandLine().getErr();
-    steelyard.io.AtomicOutput.refuseOverwritingInput(csv, input.lm, text);
+    OutputSet outputs = OutputSet.open(java.util.Collections.singletonMap("--csv", csv), java.util.List.of(input.lm, text));
     CompactModel lm = input.load(err);
     var tokenizer = LmModelInput.tokenizer(lm, normalisation, spec.commandLine().getParseResult(), err);
     Perplexity scorer = new Perplexity(lm);
@@ -46,8 +47,9 @@ public final class LmSentenceScoresCommand implements Callable<Integer> {
         } catch (java.io.IOException e) {
           throw new java.io.UncheckedIOException(e);
         }
-      });
+      }, warning -> LmModelInput.warn(err, warning));
     });
+    outputs.commit();
     return 0;
   }
 }

@@ -23,6 +23,8 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import steelyard.io.AtomicOutput;
 import steelyard.io.InputException;
+import steelyard.io.InputFiles;
+import steelyard.io.OutputSet;
 import steelyard.lm.ModelFiles;
 import steelyard.lm.train.CorpusFile;
 import steelyard.lm.train.Discounts;
@@ -75,8 +77,13 @@ public final class LmTrainCommand implements Callable<Integer> {
   @Override
   public Integer call() throws IOException {
     TrainingOptions options = options();
+    OutputSet outputs = OutputSet.open(LmModelInput.outputs("--out", out, "--json", json), java.util.List.of(text));
     Normaliser normaliser = Normaliser.create(options.normalisation());
-    CorpusFile corpus = new CorpusFile(text, normaliser, options.unit());
+    List<String> warnings = new ArrayList<>();
+    CorpusFile corpus = new CorpusFile(text, normaliser, options.unit(), w -> {
+      warnings.add(w);
+      LmModelInput.warn(spec.commandLine().getErr(), w);
+    });
     Trainer trainer = new Trainer(options);
     TrainedModel trained;
     try (ProgressBar bar = progressBar()) {
@@ -89,7 +96,8 @@ public final class LmTrainCommand implements Callable<Integer> {
     PrintWriter err = spec.commandLine().getErr();
     err.print(humanReport(trained.report(), saveSeconds));
     err.flush();
-    if (json != null) writeJson(trained.report(), saveSeconds);
+    if (json != null) writeJson(trained.report(), saveSeconds, warnings);
+    outputs.commit();
     return Main.OK;
   }
 
@@ -109,7 +117,9 @@ public final class LmTrainCommand implements Callable<Integer> {
       throw InputException.option("--out", "unknown model file type '" + out + "'", "a name ending in .arpa, .arpa.gz or .bin");
     if (sameFile(text, out))
       throw InputException.option("--out", "'" + out + "' is the training corpus", "a different file than --text");
-    if (!Files.isRegularFile(text)) throw InputException.inFile(text, "no such file", "a readable corpus file");
+    if (!text.toString().equals("-") && !Files.exists(text)) throw InputException.inFile(text, "no such file", "a readable corpus file");
+    if (vocabMinCount > 0 || maxVocab > 0)
+      InputFiles.requireRereadable(text, (vocabMinCount > 0 ? "--vocab-min-count" : "--max-vocab") + " reads the corpus twice (word counts first)");
     return new TrainingOptions(order, normalisation.unit, normalisation.options(), smoothing, vocabMinCount, maxVocab,
         cutoffs, 1.0);
   }
@@ -144,7 +154,7 @@ public final class LmTrainCommand implements Callable<Integer> {
     return sb.toString();
   }
 
-  private void writeJson(TrainingReport r, double saveSeconds) {
+  private void writeJson(TrainingReport r, double saveSeconds, List<String> commandWarnings) {
     Map<String, Object> m = new LinkedHashMap<>();
     m.put("model", out.toString());
     m.put("unit", normalisation.unit.name().toLowerCase(Locale.ROOT));
@@ -170,7 +180,9 @@ public final class LmTrainCommand implements Callable<Integer> {
       orders.add(o);
     }
     m.put("ngrams", orders);
-    m.put("warnings", r.warnings());
+    List<String> allWarnings = new ArrayList<>(commandWarnings);
+    allWarnings.addAll(r.warnings());
+    m.put("warnings", allWarnings);
     m.put("seconds_training", r.seconds());
     m.put("seconds_writing", saveSeconds);
     ObjectMapper mapper = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);

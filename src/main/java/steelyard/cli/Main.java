@@ -4,6 +4,7 @@ import java.io.PrintWriter;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import steelyard.io.InputException;
+import steelyard.io.OutputSet;
 
 /**
  * The {@code steelyard} command line: one root command, one class per subcommand.
@@ -53,7 +54,18 @@ public final class Main implements Runnable {
     cl.setExecutionExceptionHandler(Main::handleExecutionException);
     cl.setParameterExceptionHandler(Main::handleParameterException);
     cl.setCaseInsensitiveEnumValuesAllowed(true);
+    cl.setExecutionStrategy(Main::executeDiscardingUnfinishedOutputs);
     return cl;
+  }
+
+  /** Runs the command; a command that fails leaves no output set open (its temporary files are deleted). */
+  private static int executeDiscardingUnfinishedOutputs(CommandLine.ParseResult parsed) {
+    long mark = OutputSet.mark();
+    try {
+      return new CommandLine.RunLast().execute(parsed);
+    } finally {
+      OutputSet.discardOpenedSince(mark);
+    }
   }
 
   private static int handleExecutionException(Exception e, CommandLine cl, CommandLine.ParseResult parsed) {

@@ -22,6 +22,7 @@ import steelyard.io.AtomicOutput;
 import steelyard.io.FeatureSpec;
 import steelyard.io.HypothesesReader;
 import steelyard.io.InputException;
+import steelyard.io.OutputSet;
 import steelyard.io.UtteranceHypotheses;
 import steelyard.lattice.ConfusionNetwork;
 import steelyard.lattice.LatticeChoice;
@@ -85,7 +86,7 @@ public final class NetworkCommand implements Callable<Integer> {
     outputs.put("--dot", dot);
     outputs.put("--arcs", arcs);
     outputs.put("--json", json);
-    OutputPaths.refuseClashes(outputs, Arrays.asList(input.hyps, lm, weightsFile, normalisation.rules));
+    OutputSet outputSet = OutputSet.open(outputs, Arrays.asList(input.hyps, lm, weightsFile, normalisation.rules));
 
     List<FeatureSpec> specs = input.featureSpecs();
     List<String> names = new ArrayList<>();
@@ -115,6 +116,7 @@ public final class NetworkCommand implements Callable<Integer> {
       ObjectNode node = summary(s, net, paths, unit, weights);
       AtomicOutput.writeText(json, w -> RescoreSupport.writeJson(w, node));
     }
+    outputSet.commit();
     System.err.printf(Locale.ROOT, "steelyard network: %s: %d hypotheses, %d entered, %d slots, %d arcs%s%n",
         uttId, s.size(), net.enteredCount(), net.slotCount(), net.arcCount(),
         net.capped() ? " (the hypothesis cap applied)" : "");

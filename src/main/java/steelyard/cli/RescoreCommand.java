@@ -18,15 +18,16 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import steelyard.eval.Aligner;
 import steelyard.eval.Bootstrap;
+import steelyard.eval.UtteranceOverlap;
 import steelyard.io.AtomicOutput;
 import steelyard.io.FeatureSpec;
 import steelyard.io.HypothesesReader;
 import steelyard.io.ImportOptions;
 import steelyard.io.InputException;
+import steelyard.io.OutputSet;
 import steelyard.io.Reference;
 import steelyard.io.ReferencesReader;
 import steelyard.lm.LanguageModel;
-import steelyard.report.OutputPaths;
 import steelyard.rescore.HypothesisScorer;
 import steelyard.rescore.ModelIdentity;
 import steelyard.rescore.NbestRescorer;
@@ -101,21 +102,29 @@ public final class RescoreCommand implements Callable<Integer> {
     outputs.put("--breakdown", breakdown);
     outputs.put("--json", json);
     outputs.put("--save-weights", saveWeights);
-    OutputPaths.refuseClashes(outputs, Arrays.asList(input.hyps, lm, refs, weightsFile, normalisation.rules));
+    OutputSet outputSet = OutputSet.open(outputs, Arrays.asList(input.hyps, lm, refs, weightsFile, normalisation.rules));
 
     List<FeatureSpec> specs = input.featureSpecs();
     List<String> names = new ArrayList<>();
     WeightsSpec fileSpec = RescoreSupport.readWeights(weightsFile, specs, names);
     RescoreWeights weights = fileSpec.overlay(weightOptions.spec(names)).resolve(names);
     LanguageModel model = loadModel(weights);
+    if (lm != null && !modelNeeded(weights))
+      warn("the model " + lm + " is loaded but scores nothing: every LM weight is 0 (--lm-weight, --oov-weight, and --lattice-lm-weight with --method lattice)");
+    for (String ignored : weightOptions.ignoredBy(method)) warn(ignored + " has no effect with --method " + method.label());
+    if (json != null && out == null)
+      warn("the picks are not written anywhere: --json was given without --out (picks go to standard output only when neither is given); add --out FILE to keep them");
     if (weights.voteConfidence() != null && !method.usesNetwork())
       warn("--vote-confidence " + weights.voteConfidence() + " weighs only the consensus and lattice methods, not " + method.label());
     Unit unit = unit(fileSpec, model);
+    if (!spec.commandLine().getParseResult().hasMatchedOption("--unit") && unit != normalisation.unit)
+      warn("the scoring unit is " + label(unit) + ", taken from " + (fileSpec.unit != null ? "the weights in " + weightsFile : "the model " + lm)
+          + " because --unit was not given: lengths, MBR and error rates (" + (unit == Unit.CHAR ? "CER" : "WER") + ") count " + (unit == Unit.CHAR ? "characters" : "words"));
     if (fileSpec.unit != null && fileSpec.unit != unit)
       warn("the weights in " + weightsFile + " were tuned at unit " + label(fileSpec.unit) + "; this run uses " + label(unit));
     ModelIdentity identity = lm != null && (saveWeights != null || fileSpec.model != null) ? ModelIdentity.of(lm, model.order()) : null;
     if (fileSpec.model != null && identity != null && !fileSpec.model.sameModel(identity))
-      warn("the weights in " + weightsFile + " were tuned with model " + fileSpec.model.file() + ", not " + lm);
+      warn("the weights in " + weightsFile + " were tuned with model " + fileSpec.model.describe() + ", not " + lm + " " + identity.describe());
 
     Normaliser scoring = Normaliser.create(normalisation.options());
     Tokenizer unitTokens = raw -> scoring.tokens(raw, unit);
@@ -131,6 +140,7 @@ public final class RescoreCommand implements Callable<Integer> {
     RescoreSummary summary = new RescoreSummary();
     PicksWriter writer = new PicksWriter(names, unit);
     Set<String> seen = new HashSet<>();
+    Set<String> systemsSeen = new HashSet<>();
 
     withOutput(picks, pw -> withOutput(breakdown, bw -> {
       writer.picksHeader(pw);
@@ -143,6 +153,7 @@ public final class RescoreCommand implements Callable<Integer> {
           return new Outcome(r, e);
         }, run.effectiveThreads(), OrderedBatches.DEFAULT_BATCH, o -> {
           if (references != null) seen.add(o.result.uttId());
+          systemsSeen.addAll(o.result.scores().systems());
           summary.add(o.result, o.errors);
           if (references != null && o.errors == null) summary.missingReference(o.result.uttId());
           writer.pick(pw, o.result);
@@ -158,8 +169,13 @@ public final class RescoreCommand implements Callable<Integer> {
       ReferenceScorer rs = refScorer.get();
       for (Reference r : references.values())
         if (!seen.contains(r.uttId())) summary.missingHypotheses(r.uttId(), rs.missingHypotheses(r.text()));
+      String overlap = UtteranceOverlap.check(input.hyps.toString(), refs, new ArrayList<>(references.keySet()),
+          summary.missingHypothesisIds(), summary.missingReferenceIds());
+      if (overlap != null) warn(overlap);
     }
+    RescoreWeights.requireSystemsPresent(weightOptions.systems.keySet(), systemsSeen, input.hyps);
     finish(summary, weights, unit, identity);
+    outputSet.commit();
     return Main.OK;
   }
 
@@ -169,8 +185,11 @@ public final class RescoreCommand implements Callable<Integer> {
   }
 
   private LanguageModel loadModel(RescoreWeights w) {
-    boolean needed = w.lmWeight() != 0 || w.oovWeight() != 0 || (method == RescoreMethod.LATTICE && w.latticeLmWeight() != 0);
-    return RescoreSupport.loadModel(lm, needed);
+    return RescoreSupport.loadModel(lm, modelNeeded(w));
+  }
+
+  private boolean modelNeeded(RescoreWeights w) {
+    return w.lmWeight() != 0 || w.oovWeight() != 0 || (method == RescoreMethod.LATTICE && w.latticeLmWeight() != 0);
   }
 
   private void finish(RescoreSummary summary, RescoreWeights weights, Unit unit, ModelIdentity identity) throws IOException {
@@ -192,7 +211,7 @@ public final class RescoreCommand implements Callable<Integer> {
     node.set("weights", RescoreSupport.parse(WeightsFile.toJson(effective)));
     if (json != null) AtomicOutput.writeText(json, w -> RescoreSupport.writeJson(w, node));
     if (saveWeights != null) WeightsFile.save(saveWeights, effective);
-    RescoreSupport.printSummary(System.err, summary, method, refs != null);
+    RescoreSupport.printSummary(System.err, summary, method, refs != null, unit);
   }
 
   private void warn(String w) {

@@ -97,14 +97,14 @@ final class RescoreSupport {
     w.write('\n');
   }
 
-  static void printSummary(PrintStream err, RescoreSummary s, RescoreMethod method, boolean withReferences) {
+  static void printSummary(PrintStream err, RescoreSummary s, RescoreMethod method, boolean withReferences, Unit unit) {
     err.printf(Locale.ROOT, "steelyard rescore: %d utterances by %s; %d choices differ from rank 1%s%s%n",
         s.utterances(), method.label(), s.changed(),
         s.newTranscripts() > 0 ? ", " + s.newTranscripts() + " are new transcripts" : "",
         s.cappedUtterances() > 0 ? "; the hypothesis cap applied in " + s.cappedUtterances() : "");
     if (withReferences) {
-      err.printf(Locale.ROOT, "  error rate %s (rank 1 %s, N-best oracle %s) over %d utterances%n",
-          percent(s.chosen()), percent(s.first()), percent(s.oracle()), s.scored());
+      err.printf(Locale.ROOT, "  %s %s (rank 1 %s, N-best oracle %s) over %d utterances%n",
+          unit == Unit.CHAR ? "CER" : "WER", percent(s.chosen()), percent(s.first()), percent(s.oracle()), s.scored());
     }
     err.println("  note: " + RescoreSummary.NOTICE);
   }

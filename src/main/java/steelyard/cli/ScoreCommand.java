@@ -20,10 +20,12 @@ import steelyard.eval.CorpusScorer;
 import steelyard.eval.MissingHypothesisPolicy;
 import steelyard.eval.Pick;
 import steelyard.eval.SystemFilter;
+import steelyard.eval.UtteranceOverlap;
 import steelyard.io.AtomicOutput;
 import steelyard.io.HypothesesReader;
 import steelyard.io.ImportOptions;
 import steelyard.io.InputException;
+import steelyard.io.OutputSet;
 import steelyard.io.Reference;
 import steelyard.io.ReferencesReader;
 import steelyard.report.JsonOutput;
@@ -91,7 +93,7 @@ public final class ScoreCommand implements Callable<Integer> {
     LinkedHashMap<String, Path> outputs = new LinkedHashMap<>();
     outputs.put("--json", json);
     outputs.put("--csv", csv);
-    OutputPaths.refuseClashes(outputs, Arrays.asList(hypotheses.hyps, refs, normalisation.rules));
+    OutputSet outputSet = OutputSet.open(outputs, Arrays.asList(hypotheses.hyps, refs, normalisation.rules));
 
     List<String> warnings = new ArrayList<>();
     ImportOptions options = collecting(hypotheses.importOptions(), warnings);
@@ -104,8 +106,12 @@ public final class ScoreCommand implements Callable<Integer> {
     try (HypothesesReader reader = HypothesesReader.open(hypotheses.hyps, options)) {
       if (system != null && !reader.hasSystemColumn())
         throw InputException.inFile(hypotheses.hyps, "--system needs a 'system' column, which this file does not have", "a column named system");
-      score = scorer.score(refMap, system == null ? reader : new SystemFilter(reader, system));
+      SystemFilter filter = system == null ? null : new SystemFilter(reader, system);
+      score = scorer.score(refMap, filter == null ? reader : filter);
+      if (filter != null) filter.requireSeen("--system", hypotheses.hyps);
     }
+    warnAbout(UtteranceOverlap.check(hypotheses.hyps.toString() + (system == null ? "" : " system=" + system), refs, new ArrayList<>(refMap.keySet()), score.missingHypotheses(),
+        score.missingReferences()), warnings);
     Bootstrap.Interval ci = Bootstrap.corpusRate(score.table().includedErrors(), score.table().includedReferenceTokens(),
         resamples, run.seed, run.effectiveThreads());
     String source = system == null ? hypotheses.hyps.toString() : hypotheses.hyps + " system=" + system;
@@ -115,6 +121,7 @@ public final class ScoreCommand implements Callable<Integer> {
 
     if (csv != null) AtomicOutput.writeText(csv, out -> ScoreReport.csv(score, out, spreadsheetSafe));
     if (json != null) JsonOutput.write(json, ScoreReport.json(score, context));
+    outputSet.commit();
     printReport(OutputPaths.isStdout(csv) ? csv : json, ScoreReport.text(score, context));
     return Main.OK;
   }
@@ -125,6 +132,13 @@ public final class ScoreCommand implements Callable<Integer> {
     PrintWriter w = new PrintWriter(new OutputStreamWriter(target, StandardCharsets.UTF_8));
     w.print(text);
     w.flush();
+  }
+
+  /** Prints {@code warning} (if not null) on stderr and keeps it for the report's warnings. */
+  static void warnAbout(String warning, List<String> warnings) {
+    if (warning == null) return;
+    warnings.add(warning);
+    System.err.println("steelyard: warning: " + warning);
   }
 
   /** Validates the counts every scoring command takes. */

@@ -4,6 +4,7 @@ import java.nio.file.Path;
 import java.util.Locale;
 import java.util.function.Consumer;
 import steelyard.io.InputException;
+import steelyard.io.InputFiles;
 import steelyard.lm.arpa.ArpaReader;
 import steelyard.lm.arpa.ArpaWriter;
 
@@ -37,7 +38,8 @@ public final class ModelFiles {
     String name = file.getFileName() == null ? "" : file.getFileName().toString().toLowerCase(Locale.ROOT);
     if (name.endsWith(".arpa") || name.endsWith(".arpa.gz")) return Kind.ARPA;
     if (name.endsWith(".bin")) return Kind.BINARY;
-    throw InputException.option(file.toString(), "unknown model file type", "a name ending in .arpa, .arpa.gz or .bin");
+    String why = InputFiles.isStream(file) ? " (a pipe or standard input has no file name to tell the format by; save the model to a file)" : "";
+    throw InputException.option(file.toString(), "unknown model file type" + why, "a name ending in .arpa, .arpa.gz or .bin");
   }
 
   /** Loads a model for querying (the compact engine for large models). */

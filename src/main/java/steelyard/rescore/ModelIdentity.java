@@ -8,6 +8,7 @@ import java.security.MessageDigest;
 import java.security.NoSuchAlgorithmException;
 import java.util.HexFormat;
 import steelyard.io.InputException;
+import steelyard.io.InputFiles;
 
 /**
  * Which language model a set of weights was tuned with, so that applying them with another model can be
@@ -20,8 +21,9 @@ import steelyard.io.InputException;
  */
 public record ModelIdentity(String file, int order, long bytes, String sha256) {
 
-  /** Reads the model file once to compute its size and digest. */
+  /** Reads the model file once to compute its size and digest; a pipe is refused (it was read already). */
   public static ModelIdentity of(Path file, int order) {
+    InputFiles.requireRereadable(file, "the weights name the model by its size and SHA-256, which takes a second read");
     try (InputStream in = Files.newInputStream(file)) {
       MessageDigest md = MessageDigest.getInstance("SHA-256");
       byte[] buf = new byte[1 << 16];
@@ -36,6 +38,11 @@ public record ModelIdentity(String file, int order, long bytes, String sha256) {
     } catch (NoSuchAlgorithmException e) {
       throw new IllegalStateException("SHA-256 is required by every Java platform", e);
     }
+  }
+
+  /** The file name with its size and digest, e.g. {@code dock.arpa (812345 bytes, SHA-256 9f2c…)}. */
+  public String describe() {
+    return file + " (" + bytes + " bytes, SHA-256 " + sha256 + ")";
   }
 
   /** Same model bytes (the file name may differ). */

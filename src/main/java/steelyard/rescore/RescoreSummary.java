@@ -82,6 +82,10 @@ public final class RescoreSummary {
     tokensPerUtterance.add(Math.toIntExact(c.referenceTokens()));
   }
 
+  /** Ids of references with no hypotheses, in the order recorded. */
+  public List<String> missingHypothesisIds() { return List.copyOf(missingHypotheses); }
+  /** Ids of hypothesis utterances with no reference, in input order. */
+  public List<String> missingReferenceIds() { return List.copyOf(missingReferences); }
   public long utterances() { return utterances; }
   public long changed() { return changed; }
   public long newTranscripts() { return newTranscripts; }
