@@ -21,15 +21,16 @@ public final class LmConvertCommand implements Callable<Integer> {
 
   @Override
   public Integer call() {
-    ModelFiles.kind(out);
+    ModelFiles.outputKind(out);
     OutputSet outputs = OutputSet.open(java.util.Collections.singletonMap("--out", out), java.util.List.of(input.lm));
     BackoffModel model = input.loadExact(spec.commandLine().getErr());
     ModelFiles.save(model, out);
     outputs.commit();
     long n = 0;
     for (int k = 1; k <= model.order(); k++) n += model.ngramCount(k);
-    spec.commandLine().getOut().println("wrote " + out + ": order " + model.order() + ", " + n + " n-grams, " + model.vocabularySize() + " tokens");
-    spec.commandLine().getOut().flush();
+    java.io.PrintWriter report = out.toString().equals("-") ? spec.commandLine().getErr() : spec.commandLine().getOut();
+    report.println("wrote " + out + ": order " + model.order() + ", " + n + " n-grams, " + model.vocabularySize() + " tokens");
+    report.flush();
     return 0;
   }
 }

@@ -158,7 +158,8 @@ public final class LmMixCommand implements Callable<Integer> {
   }
 
   private void printText(MixtureWeights.Fit fit, PerplexityResult exact, PerplexityResult written) {
-    PrintWriter o = spec.commandLine().getOut();
+    // The model itself takes standard output with --out -: the report goes to stderr then.
+    PrintWriter o = out.toString().equals("-") ? spec.commandLine().getErr() : spec.commandLine().getOut();
     for (int i = 0; i < models.size(); i++) o.printf(Locale.ROOT, "weight %.6f  %s%n", fit.weights()[i], models.get(i));
     o.printf(Locale.ROOT, "weights from %s (%d EM iterations)%n", fixedWeights != null ? "--mix-weights" : "EM on " + text, fit.iterations());
     o.printf(Locale.ROOT, "held-out perplexity, exact mixture:        %.4f%n", exact.perplexity());

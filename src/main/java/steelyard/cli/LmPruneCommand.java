@@ -109,7 +109,8 @@ public final class LmPruneCommand implements Callable<Integer> {
   }
 
   private void printText(EntropyPruner.Result r, PerplexityResult before, PerplexityResult after) {
-    PrintWriter o = spec.commandLine().getOut();
+    // The model itself takes standard output with --out -: the report goes to stderr then.
+    PrintWriter o = out.toString().equals("-") ? spec.commandLine().getErr() : spec.commandLine().getOut();
     for (int k = 0; k < r.before().length; k++)
       o.printf(Locale.ROOT, "order %d  kept %d of %d n-grams%n", k + 1, r.after()[k], r.before()[k]);
     if (before != null) {

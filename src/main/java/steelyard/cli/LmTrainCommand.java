@@ -112,9 +112,7 @@ public final class LmTrainCommand implements Callable<Integer> {
     if (cutoffs.length > 0 && cutoffs[0] != 0)
       throw InputException.option("--cutoffs", "the unigram cut-off is " + cutoffs[0],
           "0 for unigrams (use --vocab-min-count to drop rare words)");
-    String name = out.getFileName() == null ? "" : out.getFileName().toString().toLowerCase(Locale.ROOT);
-    if (!(name.endsWith(".arpa") || name.endsWith(".arpa.gz") || name.endsWith(".bin")))
-      throw InputException.option("--out", "unknown model file type '" + out + "'", "a name ending in .arpa, .arpa.gz or .bin");
+    ModelFiles.outputKind(out);
     if (sameFile(text, out))
       throw InputException.option("--out", "'" + out + "' is the training corpus", "a different file than --text");
     if (!text.toString().equals("-") && !Files.exists(text)) throw InputException.inFile(text, "no such file", "a readable corpus file");

@@ -102,7 +102,8 @@ public final class OutputSet implements AutoCloseable {
       if (OutputTarget.isCharacterDevice(p)) continue;
       for (Path in : inputs) {
         if (in != null && same(p, in))
-          throw InputException.option(out.getKey(), "output path is the input file " + in, "an output path different from every input file");
+          throw InputException.option(out.getKey(), "output path is the input file " + in + " (also an input: writing would destroy it)",
+              "an output path different from every input file");
       }
       for (Map.Entry<String, Path> other : seen) {
         if (same(p, other.getValue()))

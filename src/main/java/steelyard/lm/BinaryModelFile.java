@@ -258,11 +258,19 @@ public final class BinaryModelFile {
     }
   }
 
-  /** A model arriving through a pipe or FIFO: read to its end (a stream has no size to ask for). */
+  /**
+   * A model arriving through a pipe or FIFO: read to its end with plain reads (a stream has no size, and the
+   * bulk-read shortcuts of {@link java.io.FileInputStream} ask for one: "Illegal seek").
+   */
   private static ByteBuffer readStream(Path file) {
     try (InputStream in = new java.io.FileInputStream(file.toFile())) {
-      byte[] b = in.readNBytes(Integer.MAX_VALUE - 64);
-      return ByteBuffer.wrap(b).order(ByteOrder.LITTLE_ENDIAN);
+      java.io.ByteArrayOutputStream all = new java.io.ByteArrayOutputStream(1 << 16);
+      byte[] buf = new byte[1 << 16];
+      for (int n; (n = in.read(buf)) >= 0; ) {
+        all.write(buf, 0, n);
+        if (all.size() > Integer.MAX_VALUE - (1 << 20)) throw bad(file, "stream too large for a binary model");
+      }
+      return ByteBuffer.wrap(all.toByteArray()).order(ByteOrder.LITTLE_ENDIAN);
     } catch (IOException e) {
       throw InputException.inFile(file, "cannot read (" + e.getMessage() + ")", "a readable model file").withCause(e);
     }

@@ -5,6 +5,7 @@ import java.util.Locale;
 import java.util.function.Consumer;
 import steelyard.io.InputException;
 import steelyard.io.InputFiles;
+import steelyard.io.OutputTarget;
 import steelyard.lm.arpa.ArpaReader;
 import steelyard.lm.arpa.ArpaWriter;
 
@@ -75,9 +76,20 @@ public final class ModelFiles {
     }
   }
 
-  /** Saves atomically, format chosen by the file name. */
+  /**
+   * The format a model is saved in: by the file name; ARPA text for {@code -} (standard output) and for a
+   * device, FIFO or descriptor whose name does not say ({@code /dev/null}, {@code /dev/fd/3}).
+   */
+  public static Kind outputKind(Path file) {
+    String name = file.getFileName() == null ? "" : file.getFileName().toString().toLowerCase(Locale.ROOT);
+    boolean named = name.endsWith(".arpa") || name.endsWith(".arpa.gz") || name.endsWith(".bin");
+    if (!named && (file.toString().equals("-") || OutputTarget.kind(file) != OutputTarget.Kind.REPLACE)) return Kind.ARPA;
+    return kind(file);
+  }
+
+  /** Saves atomically, format chosen by the file name ({@code -}: ARPA text on standard output). */
   public static void save(BackoffModel model, Path file) {
-    switch (kind(file)) {
+    switch (outputKind(file)) {
       case ARPA:
         ArpaWriter.write(model, file);
         return;
