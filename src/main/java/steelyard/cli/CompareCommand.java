@@ -16,6 +16,8 @@ import steelyard.eval.PairedComparison;
 import steelyard.eval.Pick;
 import steelyard.eval.SystemFilter;
 import steelyard.eval.UtteranceOverlap;
+import steelyard.history.InputFile;
+import steelyard.history.RunRecord;
 import steelyard.io.FeatureSpec;
 import steelyard.io.HypothesesReader;
 import steelyard.io.ImportOptions;
@@ -67,6 +69,7 @@ public final class CompareCommand implements Callable<Integer> {
 
   @Mixin NormalisationInput normalisation;
   @Mixin RunInput run;
+  @Mixin HistoryOption history;
 
   @Option(names = "--refs", required = true, paramLabel = "FILE", description = "References CSV (utt_id,text[,group]; .gz accepted).")
   Path refs;
@@ -93,8 +96,7 @@ public final class CompareCommand implements Callable<Integer> {
       throw InputException.option("--systems", "needs one --hyps file and two distinct system names, got " + hyps.size()
           + " file(s) and '" + String.join(",", systems) + "'", "--hyps FILE --systems A,B");
     List<String> display = names != null ? names : systems != null ? systems : List.of("A", "B");
-    if (display.size() != 2 || display.get(0).isBlank() || display.get(1).isBlank() || display.get(0).equals(display.get(1)))
-      throw InputException.option("--names", "'" + String.join(",", display) + "' is not two distinct names", "two names such as baseline,tuned");
+    checkNames(display);
     ScoreCommand.checkOptions(pick, resamples, 0);
     LinkedHashMap<String, Path> outputs = new LinkedHashMap<>();
     outputs.put("--json", json);
@@ -113,8 +115,9 @@ public final class CompareCommand implements Callable<Integer> {
     CorpusScorer scorer = new CorpusScorer(raw -> normaliser.tokens(raw, unit), new CorpusScorer.Settings(pick, missing, 0, false));
     Path fileA = hyps.get(0);
     Path fileB = systems == null ? hyps.get(1) : hyps.get(0);
-    CorpusScore a = scoreFile(scorer, refMap, fileA, systems == null ? null : systems.get(0), options);
-    CorpusScore b = scoreFile(scorer, refMap, fileB, systems == null ? null : systems.get(1), options);
+    long[] hypRows = new long[2];
+    CorpusScore a = scoreFile(scorer, refMap, fileA, systems == null ? null : systems.get(0), options, hypRows, 0);
+    CorpusScore b = scoreFile(scorer, refMap, fileB, systems == null ? null : systems.get(1), options, hypRows, 1);
     List<String> refIds = new ArrayList<>(refMap.keySet());
     ScoreCommand.warnAbout(UtteranceOverlap.check(label(fileA, 0), refs, refIds, a.missingHypotheses(), a.missingReferences()), warnings);
     ScoreCommand.warnAbout(UtteranceOverlap.check(label(fileB, 1), refs, refIds, b.missingHypotheses(), b.missingReferences()), warnings);
@@ -127,7 +130,23 @@ public final class CompareCommand implements Callable<Integer> {
     if (json != null) JsonOutput.write(json, CompareReport.json(report));
     outputSet.commit();
     ScoreCommand.printReport(json, CompareReport.text(report));
+    history.record(recorded(display.get(0), fileA, hypRows[0], a, warnings, normaliser, refMap.size()),
+        recorded(display.get(1), fileB, hypRows[1], b, warnings, normaliser, refMap.size()));
     return Main.OK;
+  }
+
+  /** Refuses display names that are not two distinct, non-blank names. */
+  static void checkNames(List<String> display) {
+    if (display.size() != 2 || display.get(0).isBlank() || display.get(1).isBlank() || display.get(0).equals(display.get(1)))
+      throw InputException.option("--names", "'" + String.join(",", display) + "' is not two distinct names", "two names such as baseline,tuned");
+  }
+
+  // One compared system as a run of its own, labelled with its display name; its interval is computed only when recorded.
+  private RunRecord.Builder recorded(
+      String name, Path file, long hypRows, CorpusScore score, List<String> warnings, Normaliser normaliser, int refRows) {
+    return history.run().label(name).warnings(warnings).scored(score).bootstrap(resamples, run.seed, run.effectiveThreads())
+        .unit(normalisation.unit, normaliser.describe()).input(InputFile.HYPOTHESES, file, hypRows)
+        .input(InputFile.REFERENCES, refs, refRows).input(InputFile.RULES, normalisation.rules, InputFile.UNKNOWN_ROWS);
   }
 
   // The file, with the system when one file holds both: "dockets.csv system=line-gray".
@@ -135,14 +154,16 @@ public final class CompareCommand implements Callable<Integer> {
     return systems == null ? file.toString() : file + " system=" + systems.get(which);
   }
 
-  private static CorpusScore scoreFile(
-      CorpusScorer scorer, LinkedHashMap<String, Reference> refMap, Path file, String system, ImportOptions options) {
+  // Scores one system; the rows read from its file go to rowsRead[which].
+  private static CorpusScore scoreFile(CorpusScorer scorer, LinkedHashMap<String, Reference> refMap, Path file, String system,
+      ImportOptions options, long[] rowsRead, int which) {
     try (HypothesesReader reader = HypothesesReader.open(file, options)) {
       if (system != null && !reader.hasSystemColumn())
         throw InputException.inFile(file, "--systems needs a 'system' column, which this file does not have", "a column named system");
       SystemFilter filter = system == null ? null : new SystemFilter(reader, system);
       CorpusScore score = scorer.score(refMap, filter == null ? reader : filter);
       if (filter != null) filter.requireSeen("--systems", file);
+      rowsRead[which] = reader.rowsRead();
       return score;
     }
   }

@@ -41,8 +41,8 @@ import steelyard.text.Normaliser;
 public final class LmTrainCommand implements Callable<Integer> {
   @Spec CommandSpec spec;
 
-  @Option(names = "--text", required = true, paramLabel = "FILE", description = "Training corpus, one sentence per line.")
-  Path text;
+  @Option(names = "--corpus", required = true, paramLabel = "FILE", description = "Training corpus, one sentence per line.")
+  Path corpus;
 
   @Option(names = "--order", required = true, paramLabel = "N", description = "N-gram order, 1 to 6.")
   int order;
@@ -61,9 +61,13 @@ public final class LmTrainCommand implements Callable<Integer> {
       description = "Keep only the V most frequent words; the rest become <unk>. 0: no limit.")
   int maxVocab;
 
-  @Option(names = "--cutoffs", paramLabel = "C1,C2,…", split = ",",
-      description = "Per-order count cut-offs: an n-gram of order k seen at most Ck times is not listed (its mass goes to the back-off). C1 must be 0; the last value repeats.")
-  int[] cutoffs = new int[0];
+  @Option(names = "--min-count", paramLabel = "ORDER=C", split = ",",
+      description = "Keep n-grams of this order (2 and up) only when seen at least C times, e.g. 2=2,3=2; orders not named keep every n-gram. A dropped n-gram's probability mass goes to the back-off.")
+  List<String> minCount = new ArrayList<>();
+
+  /** 0.1's form of --min-count, hidden: per-order cut-offs C1,C2,… (C1 = 0, the last repeating), dropping counts ≤ Ck. */
+  @Option(names = "--cutoffs", hidden = true, paramLabel = "C1,C2,…", split = ",", description = "Old form of --min-count.")
+  int[] cutoffs;
 
   @Option(names = "--out", required = true, paramLabel = "FILE", description = "Model file: .arpa, .arpa.gz or .bin.")
   Path out;
@@ -77,10 +81,10 @@ public final class LmTrainCommand implements Callable<Integer> {
   @Override
   public Integer call() throws IOException {
     TrainingOptions options = options();
-    OutputSet outputs = OutputSet.open(LmModelInput.outputs("--out", out, "--json", json), java.util.List.of(text));
+    OutputSet outputs = OutputSet.open(LmModelInput.outputs("--out", out, "--json", json), java.util.List.of(corpus));
     Normaliser normaliser = Normaliser.create(options.normalisation());
     List<String> warnings = new ArrayList<>();
-    CorpusFile corpus = new CorpusFile(text, normaliser, options.unit(), w -> {
+    CorpusFile lines = new CorpusFile(corpus, normaliser, options.unit(), w -> {
       warnings.add(w);
       LmModelInput.warn(spec.commandLine().getErr(), w);
     });
@@ -88,7 +92,7 @@ public final class LmTrainCommand implements Callable<Integer> {
     TrainedModel trained;
     try (ProgressBar bar = progressBar()) {
       if (bar != null) trainer.onSentences(bar::stepTo);
-      trained = trainer.train(corpus);
+      trained = trainer.train(lines);
     }
     long saveStart = System.nanoTime();
     ModelFiles.save(trained.backoffModel(), out);
@@ -108,18 +112,16 @@ public final class LmTrainCommand implements Callable<Integer> {
           "mkn, wb or abs to save a model (add-k is for in-memory comparisons only)");
     if (vocabMinCount < 0) throw InputException.option("--vocab-min-count", "negative count " + vocabMinCount, "0 or more");
     if (maxVocab < 0) throw InputException.option("--max-vocab", "negative size " + maxVocab, "0 (no limit) or more");
-    for (int c : cutoffs) if (c < 0) throw InputException.option("--cutoffs", "negative cut-off " + c, "counts of 0 or more");
-    if (cutoffs.length > 0 && cutoffs[0] != 0)
-      throw InputException.option("--cutoffs", "the unigram cut-off is " + cutoffs[0],
-          "0 for unigrams (use --vocab-min-count to drop rare words)");
+    int[] minCounts = cutoffs != null ? MinCounts.fromCutoffs(cutoffs, order, minCount, spec.commandLine().getErr())
+        : MinCounts.parse(minCount, order);
     ModelFiles.outputKind(out);
-    if (sameFile(text, out))
-      throw InputException.option("--out", "'" + out + "' is the training corpus", "a different file than --text");
-    if (!text.toString().equals("-") && !Files.exists(text)) throw InputException.inFile(text, "no such file", "a readable corpus file");
+    if (sameFile(corpus, out))
+      throw InputException.option("--out", "'" + out + "' is the training corpus", "a different file than --corpus");
+    if (!corpus.toString().equals("-") && !Files.exists(corpus)) throw InputException.inFile(corpus, "no such file", "a readable corpus file");
     if (vocabMinCount > 0 || maxVocab > 0)
-      InputFiles.requireRereadable(text, (vocabMinCount > 0 ? "--vocab-min-count" : "--max-vocab") + " reads the corpus twice (word counts first)");
+      InputFiles.requireRereadable(corpus, (vocabMinCount > 0 ? "--vocab-min-count" : "--max-vocab") + " reads the corpus twice (word counts first)");
     return new TrainingOptions(order, normalisation.unit, normalisation.options(), smoothing, vocabMinCount, maxVocab,
-        cutoffs, 1.0);
+        minCounts, 1.0);
   }
 
   private static boolean sameFile(Path a, Path b) throws IOException {
@@ -173,7 +175,7 @@ public final class LmTrainCommand implements Callable<Integer> {
         Discounts d = r.discounts().get(k - 1);
         o.put("count_of_counts", d.countOfCounts());
         o.put("discounts", d.values());
-        o.put("discount_fallback", d.fallback());
+        o.put("discount_replaced", d.replaced());
       }
       orders.add(o);
     }

@@ -21,6 +21,7 @@ import steelyard.eval.MissingHypothesisPolicy;
 import steelyard.eval.Pick;
 import steelyard.eval.SystemFilter;
 import steelyard.eval.UtteranceOverlap;
+import steelyard.history.InputFile;
 import steelyard.io.AtomicOutput;
 import steelyard.io.HypothesesReader;
 import steelyard.io.ImportOptions;
@@ -54,6 +55,7 @@ public final class ScoreCommand implements Callable<Integer> {
   @Mixin HypothesesInput hypotheses;
   @Mixin NormalisationInput normalisation;
   @Mixin RunInput run;
+  @Mixin HistoryOption history;
 
   @Option(names = "--refs", required = true, paramLabel = "FILE", description = "References CSV (utt_id,text[,group]; .gz accepted).")
   Path refs;
@@ -103,12 +105,14 @@ public final class ScoreCommand implements Callable<Integer> {
     CorpusScorer scorer = new CorpusScorer(raw -> normaliser.tokens(raw, unit),
         new CorpusScorer.Settings(pick, missing, top, csv != null));
     CorpusScore score;
+    long hypRows;
     try (HypothesesReader reader = HypothesesReader.open(hypotheses.hyps, options)) {
       if (system != null && !reader.hasSystemColumn())
         throw InputException.inFile(hypotheses.hyps, "--system needs a 'system' column, which this file does not have", "a column named system");
       SystemFilter filter = system == null ? null : new SystemFilter(reader, system);
       score = scorer.score(refMap, filter == null ? reader : filter);
       if (filter != null) filter.requireSeen("--system", hypotheses.hyps);
+      hypRows = reader.rowsRead();
     }
     warnAbout(UtteranceOverlap.check(hypotheses.hyps.toString() + (system == null ? "" : " system=" + system), refs, new ArrayList<>(refMap.keySet()), score.missingHypotheses(),
         score.missingReferences()), warnings);
@@ -123,6 +127,9 @@ public final class ScoreCommand implements Callable<Integer> {
     if (json != null) JsonOutput.write(json, ScoreReport.json(score, context));
     outputSet.commit();
     printReport(OutputPaths.isStdout(csv) ? csv : json, ScoreReport.text(score, context));
+    history.record(history.run().warnings(warnings).scored(score).interval(ci, resamples, run.seed).unit(unit, normaliser.describe())
+        .label(system).input(InputFile.HYPOTHESES, hypotheses.hyps, hypRows).input(InputFile.REFERENCES, refs, refMap.size())
+        .input(InputFile.RULES, normalisation.rules, InputFile.UNKNOWN_ROWS));
     return Main.OK;
   }
 

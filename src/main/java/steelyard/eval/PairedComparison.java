@@ -48,7 +48,7 @@ public record PairedComparison(
   /**
    * Compares two scores made from the same reference map (so their table rows line up). The common set is the
    * utterances included in both (under {@link MissingHypothesisPolicy#EXCLUDE} an utterance missing from either
-   * system drops out of the comparison).
+   * system drops out of the comparison), in reference-file order.
    */
   public static PairedComparison of(CorpusScore a, CorpusScore b, int resamples, long seed, int threads) {
     UtteranceScores ta = a.table();
@@ -57,28 +57,36 @@ public record PairedComparison(
     IntArrayList ea = new IntArrayList();
     IntArrayList eb = new IntArrayList();
     IntArrayList refs = new IntArrayList();
+    for (int row = 0; row < ta.size(); row++) {
+      if (!ta.uttId(row).equals(tb.uttId(row))) throw new IllegalArgumentException("rows differ at " + row);
+      if (!ta.included(row) || !tb.included(row)) continue;
+      ea.add(ta.errors(row));
+      eb.add(tb.errors(row));
+      refs.add(ta.referenceTokens(row));
+    }
+    return of(ea.toIntArray(), eb.toIntArray(), refs.toIntArray(), resamples, seed, threads);
+  }
+
+  /**
+   * Compares two systems on a common set given as parallel per-utterance arrays (errors S + D + I of A and of B,
+   * reference tokens N), in the order the resampling draws from: the statistics {@code compare} reports. Same
+   * arrays, resamples and seed give the same result whatever the thread count.
+   */
+  public static PairedComparison of(int[] errA, int[] errB, int[] ref, int resamples, long seed, int threads) {
+    if (errA.length != ref.length || errB.length != ref.length)
+      throw new IllegalArgumentException("array lengths differ: " + errA.length + ", " + errB.length + ", " + ref.length);
     long sumA = 0;
     long sumB = 0;
     long n = 0;
     int aBetter = 0;
     int bBetter = 0;
-    for (int row = 0; row < ta.size(); row++) {
-      if (!ta.uttId(row).equals(tb.uttId(row))) throw new IllegalArgumentException("rows differ at " + row);
-      if (!ta.included(row) || !tb.included(row)) continue;
-      int x = ta.errors(row);
-      int y = tb.errors(row);
-      ea.add(x);
-      eb.add(y);
-      refs.add(ta.referenceTokens(row));
-      sumA += x;
-      sumB += y;
-      n += ta.referenceTokens(row);
-      if (x < y) aBetter++;
-      if (y < x) bBetter++;
+    for (int u = 0; u < ref.length; u++) {
+      sumA += errA[u];
+      sumB += errB[u];
+      n += ref[u];
+      if (errA[u] < errB[u]) aBetter++;
+      if (errB[u] < errA[u]) bBetter++;
     }
-    int[] errA = ea.toIntArray();
-    int[] errB = eb.toIntArray();
-    int[] ref = refs.toIntArray();
     // One seed for all three analyses: each sees the same resampled utterance sets.
     Bootstrap.Interval ia = Bootstrap.corpusRate(errA, ref, resamples, seed, threads);
     Bootstrap.Interval ib = Bootstrap.corpusRate(errB, ref, resamples, seed, threads);

@@ -103,7 +103,7 @@ public final class BinaryModelFile {
   /** Reads a model written by {@link #write}. */
   public static CompactModel read(Path file) {
     ByteBuffer all = readAll(file);
-    if (all.remaining() == 0) throw InputException.inFile(file, "empty file", "a binary model file written by 'steelyard lm convert'");
+    if (all.remaining() == 0) throw InputException.inFile(file, "empty file", "a binary model file written by 'steelyard lm copy'");
     if (all.remaining() < HEADER) throw bad(file, "file too short for the header (" + all.remaining() + " bytes; truncated?)");
     byte[] magic = new byte[8];
     all.get(magic);
@@ -189,7 +189,7 @@ public final class BinaryModelFile {
    * Refuses what the ARPA reader refuses, so that a file whose checksum was recomputed after an edit cannot
    * smuggle it in: a log10 probability that is positive, infinite or NaN on a listed n-gram (NaN marks a
    * context-only entry, which must have longer n-grams), a back-off weight that is not finite, and counts in
-   * the payload that disagree with the n-grams the arrays hold (so {@code lm info} reports what is there).
+   * the payload that disagree with the n-grams the arrays hold (so {@code lm describe} reports what is there).
    */
   private static void checkValues(Path file, int order, int[][] levels, int[] counts) {
     for (int k = 0; k < order; k++) {
@@ -277,6 +277,6 @@ public final class BinaryModelFile {
   }
 
   private static InputException bad(Path file, String problem) {
-    return InputException.inFile(file, problem, "a binary model file written by 'steelyard lm convert' (format version " + VERSION + ")");
+    return InputException.inFile(file, problem, "a binary model file written by 'steelyard lm copy' (format version " + VERSION + ")");
   }
 }

@@ -38,7 +38,7 @@ class AllOrNothingOutputsTest {
         Arguments.of("score --csv --json", List.of("score", "--hyps", HYPS, "--refs", REFS, "--csv", "{out}/table.csv", "--json", "{out}/summary.json")),
         Arguments.of("network --dot --arcs --json", List.of("network", "--hyps", HYPS, "--utt", "bay-001",
             "--dot", "{out}/n.dot", "--arcs", "{out}/arcs.csv", "--json", "{out}/n.json")),
-        Arguments.of("lm train --out --json", List.of("lm", "train", "--text", CORPUS, "--order", "2", "--out", "{out}/m.arpa", "--json", "{out}/t.json")),
+        Arguments.of("lm train --out --json", List.of("lm", "train", "--corpus", CORPUS, "--order", "2", "--out", "{out}/m.arpa", "--json", "{out}/t.json")),
         Arguments.of("lm prune --out --json", List.of("lm", "prune", "--lm", ARPA, "--threshold", "1e-3", "--out", "{out}/p.bin", "--json", "{out}/p.json")),
         Arguments.of("lm mix --out --json", List.of("lm", "mix", "--lm", ARPA, "--lm", ARPA, "--text", CORPUS,
             "--out", "{out}/mix.arpa", "--json", "{out}/mix.json")));

@@ -95,7 +95,8 @@ class ArchitectureTest {
   @Test
   void coreNeverDependsOnTheCommandLineOrTheWindow() {
     noClasses().that().resideInAnyPackage("steelyard.io..", "steelyard.text..", "steelyard.lm..", "steelyard.lattice..",
-            "steelyard.rescore..", "steelyard.eval..", "steelyard.report..", "steelyard.tune..", "steelyard.audit..")
+            "steelyard.rescore..", "steelyard.eval..", "steelyard.report..", "steelyard.tune..", "steelyard.audit..",
+            "steelyard.history..")
         .should().dependOnClassesThat().resideInAnyPackage("steelyard.cli..", "steelyard.gui..")
         .because("DEVELOPERS.md: the core never imports cli or gui")
         .check(main);

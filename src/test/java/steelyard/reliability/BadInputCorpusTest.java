@@ -227,7 +227,7 @@ class BadInputCorpusTest {
   /** A character-level model trained by the real {@code lm train --unit char} on the valid corpus. */
   private static byte[] charModel(Path dir) throws IOException {
     Path model = dir.resolve("char-trained.arpa");
-    Cli.Result r = Cli.runBuilt("lm", "train", "--text", Fixtures.valid("corpus.txt").toString(), "--order", "3", "--unit", "char",
+    Cli.Result r = Cli.runBuilt("lm", "train", "--corpus", Fixtures.valid("corpus.txt").toString(), "--order", "3", "--unit", "char",
         "--out", model.toString());
     assertThat(r.exit()).as("lm train --unit char\n%s", r).isZero();
     return Files.readAllBytes(model);
@@ -252,13 +252,13 @@ class BadInputCorpusTest {
     return b;
   }
 
-  /** A valid binary model converted from the committed ARPA by the real {@code lm convert}. */
+  /** A valid binary model converted from the committed ARPA by the real {@code lm copy}. */
   static byte[] goodBinary(Path dir) throws IOException {
     Path bin = dir.resolve("good.bin");
     if (!Files.exists(bin)) {
       Files.createDirectories(dir);
-      Cli.Result r = Cli.runBuilt("lm", "convert", "--lm", Fixtures.valid("small.arpa").toString(), "--out", bin.toString());
-      assertThat(r.exit()).as("lm convert of the valid model\n%s", r).isZero();
+      Cli.Result r = Cli.runBuilt("lm", "copy", "--lm", Fixtures.valid("small.arpa").toString(), "--out", bin.toString());
+      assertThat(r.exit()).as("lm copy of the valid model\n%s", r).isZero();
     }
     return Files.readAllBytes(bin);
   }

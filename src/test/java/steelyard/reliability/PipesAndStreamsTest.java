@@ -59,8 +59,8 @@ class PipesAndStreamsTest {
   void lmTrainReadsItsCorpusFromStandardInputInOnePass() throws Exception {
     Path fromFile = dir.resolve("file.arpa");
     Path fromStdin = dir.resolve("stdin.arpa");
-    assertThat(Cli.runBuilt("lm", "train", "--text", CORPUS.toString(), "--order", "2", "--out", fromFile.toString()).exit()).isZero();
-    Cli.Result r = withStdin(Files.readAllBytes(CORPUS), "lm", "train", "--text", "-", "--order", "2", "--out", fromStdin.toString());
+    assertThat(Cli.runBuilt("lm", "train", "--corpus", CORPUS.toString(), "--order", "2", "--out", fromFile.toString()).exit()).isZero();
+    Cli.Result r = withStdin(Files.readAllBytes(CORPUS), "lm", "train", "--corpus", "-", "--order", "2", "--out", fromStdin.toString());
     assertThat(r.exit()).as("%s", r).isZero();
     assertThat(Files.readString(fromStdin)).isEqualTo(Files.readString(fromFile));
   }
@@ -68,19 +68,19 @@ class PipesAndStreamsTest {
   @Test
   void aBinaryModelThroughAFifoNamedBinLoads() throws Exception {
     Path bin = dir.resolve("model.bin");
-    assertThat(Cli.runBuilt("lm", "convert", "--lm", ARPA.toString(), "--out", bin.toString()).exit()).isZero();
+    assertThat(Cli.runBuilt("lm", "copy", "--lm", ARPA.toString(), "--out", bin.toString()).exit()).isZero();
     Path fifo = fifo("piped.bin");
     CompletableFuture<Void> w = feed(fifo, Files.readAllBytes(bin));
-    Cli.Result r = Cli.runBuilt("lm", "info", "--lm", fifo.toString());
+    Cli.Result r = Cli.runBuilt("lm", "describe", "--lm", fifo.toString(), "--json", "-");
     drain(fifo, w);
     assertThat(r.exit()).as("%s", r).isZero();
-    assertThat(r.out()).contains("2-grams          6");
+    assertThat(r.out()).contains("\"ngrams_total\" : 22");
   }
 
   @Test
   void commandsThatReadAnInputTwiceRefuseAStreamSayingWhy() throws Exception {
     refused(CORPUS, "corpus.fifo", "can be read only once", "--vocab-min-count reads the corpus twice",
-        "lm", "train", "--text", "{fifo}", "--order", "2", "--vocab-min-count", "2", "--out", dir.resolve("m.arpa").toString());
+        "lm", "train", "--corpus", "{fifo}", "--order", "2", "--vocab-min-count", "2", "--out", dir.resolve("m.arpa").toString());
     Path dockets = Files.writeString(dir.resolve("two.csv"), "utt_id,system,text\nd1,a,x y\nd1,b,x z\n");
     refused(dockets, "two.fifo", "can be read only once", "--systems scores it once per system",
         "compare", "--refs", REFS.toString(), "--hyps", "{fifo}", "--systems", "a,b");

@@ -41,7 +41,7 @@ class SurprisesWarnedTest {
   @Test
   void theUnitTakenFromTheModelIsNamedAndTheSummarySaysCer() throws IOException {
     Path charModel = dir.resolve("char.arpa");
-    assertThat(Cli.runBuilt("lm", "train", "--text", CORPUS, "--order", "3", "--unit", "char", "--out", charModel.toString()).exit()).isZero();
+    assertThat(Cli.runBuilt("lm", "train", "--corpus", CORPUS, "--order", "3", "--unit", "char", "--out", charModel.toString()).exit()).isZero();
     Warned w = rescore("--lm", charModel.toString(), "--lm-weight", "0.5", "--refs", REFS);
     w.contains("the scoring unit is char, taken from the model " + charModel + " because --unit was not given");
     assertThat(w.result.err()).contains("  CER ").doesNotContain("  WER ");
@@ -59,7 +59,7 @@ class SurprisesWarnedTest {
   @Test
   void aCsvFileGivenAsPlainTextIsNamed() throws IOException {
     Path json = dir.resolve("train.json");
-    Cli.Result train = Cli.runBuilt("lm", "train", "--text", REFS, "--order", "2", "--out", dir.resolve("m.arpa").toString(), "--json", json.toString());
+    Cli.Result train = Cli.runBuilt("lm", "train", "--corpus", REFS, "--order", "2", "--out", dir.resolve("m.arpa").toString(), "--json", json.toString());
     assertThat(train.exit()).as("%s", train).isZero();
     new Warned(train, json).contains("the first line 'utt_id,text' looks like a CSV header");
 
@@ -77,7 +77,7 @@ class SurprisesWarnedTest {
     assertThat(r.exit()).isZero();
     assertThat(r.err()).doesNotContain("warning");
     assertThat(new ObjectMapper().readTree(json.toFile()).get("warnings")).isEmpty();
-    Cli.Result train = Cli.runBuilt("lm", "train", "--text", CORPUS, "--order", "2", "--out", dir.resolve("m.arpa").toString());
+    Cli.Result train = Cli.runBuilt("lm", "train", "--corpus", CORPUS, "--order", "2", "--out", dir.resolve("m.arpa").toString());
     assertThat(train.err()).doesNotContain("CSV header");
   }
 
