@@ -53,19 +53,19 @@ public final class Main implements Runnable {
   public static CommandLine commandLine() {
     CommandLine cl = new CommandLine(new Main());
     OldSpellings.install(cl);
-    cl.setExecutionStrategy(parsed -> {
-      OldSpellings.warnAboutCommands(parsed);
-      return new CommandLine.RunLast().execute(parsed);
-    });
+    cl.setExecutionStrategy(Main::execute);
     cl.setExecutionExceptionHandler(Main::handleExecutionException);
     cl.setParameterExceptionHandler(Main::handleParameterException);
     cl.setCaseInsensitiveEnumValuesAllowed(true);
-    cl.setExecutionStrategy(Main::executeDiscardingUnfinishedOutputs);
     return cl;
   }
 
-  /** Runs the command; a command that fails leaves no output set open (its temporary files are deleted). */
-  private static int executeDiscardingUnfinishedOutputs(CommandLine.ParseResult parsed) {
+  /**
+   * Runs the command after the notices about old spellings; a command that fails leaves no output set open (its
+   * temporary files are deleted, its targets untouched).
+   */
+  private static int execute(CommandLine.ParseResult parsed) {
+    OldSpellings.warnAboutCommands(parsed);
     long mark = OutputSet.mark();
     try {
       return new CommandLine.RunLast().execute(parsed);
