@@ -8,8 +8,10 @@ import java.net.URISyntaxException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import java.util.concurrent.Callable;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
@@ -17,6 +19,7 @@ import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import steelyard.io.InputException;
+import steelyard.io.OutputSet;
 
 /**
  * Runs the main job on the bundled demo data: the invented produce-warehouse cooperative's voice logs
@@ -74,11 +77,16 @@ public final class DemoCommand implements Callable<Integer> {
             "--lm", models.resolve("dockets-char-5gram.arpa.gz").toString(),
             "--weights", models.resolve("dockets-demo.weights.json").toString(),
             "--features", "confidence", "--unit", "char", "--method", "lattice")));
+    // All six outputs are one set: the two rescore runs stage into it, and a failure leaves demo-out/ as it was.
+    Map<String, Path> outputs = new LinkedHashMap<>();
+    for (Part p : parts) for (String kind : List.of(".picks.csv", ".summary.json", ".breakdown.csv")) outputs.put(p.stem() + kind, outDir.resolve(p.stem() + kind));
+    OutputSet outputSet = OutputSet.open(outputs, List.of());
     for (Part p : parts) {
       int code = runPart(p);
       if (code != 0) return code;
-      printSummary(out, p);
     }
+    outputSet.commit();
+    for (Part p : parts) printSummary(out, p);
     out.println("Outputs in " + outDir + "/: *.picks.csv (the chosen transcript per utterance), *.summary.json, *.breakdown.csv (every hypothesis's score terms).");
     out.println("An automatic pick is not a verified transcript: transcripts with legal, medical or safety weight need review by a person.");
     out.flush();

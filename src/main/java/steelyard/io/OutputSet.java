@@ -34,7 +34,9 @@ import java.util.concurrent.CopyOnWriteArrayList;
  * says which targets were already replaced.
  *
  * <p>Sets are registered globally until they are committed or closed, so writes from any thread are staged;
- * the command line discards the sets a failed command left open ({@link #discardOpenedSince}).
+ * the command line discards the sets a failed command left open ({@link #discardOpenedSince}). When sets nest
+ * (a command that runs others, such as the demo), the earliest open set holding a path stages it, so the
+ * outer command commits everything at its own end.
  */
 public final class OutputSet implements AutoCloseable {
   private static final List<OutputSet> OPEN = new CopyOnWriteArrayList<>();

@@ -79,6 +79,39 @@ class AllOrNothingOutputsTest {
     assertUnchangedAfterFailure(args, out);
   }
 
+  /**
+   * The demo runs two rescorings; when the second fails (its references have a duplicate id on the last line),
+   * the first one's picks, summary and breakdown must not have replaced the earlier ones either.
+   */
+  @org.junit.jupiter.api.Test
+  void theDemoWritesBothPartsOrNeither(@TempDir Path tmp) throws IOException {
+    Path project = Path.of("").toAbsolutePath();
+    Path data = Files.createDirectories(tmp.resolve("project/sample-hypotheses"));
+    Path models = Files.createDirectories(tmp.resolve("project/models"));
+    for (String f : List.of("voice-test.nbest.csv", "voice-test.refs.csv", "voice.rules", "dockets-test.nbest.csv"))
+      Files.createSymbolicLink(data.resolve(f), project.resolve("sample-hypotheses").resolve(f));
+    for (String f : List.of("voice-3gram.arpa.gz", "voice-demo.weights.json", "dockets-char-5gram.arpa.gz", "dockets-demo.weights.json"))
+      Files.createSymbolicLink(models.resolve(f), project.resolve("models").resolve(f));
+    List<String> refs = Files.readAllLines(project.resolve("sample-hypotheses/dockets-test.refs.csv"));
+    Files.write(data.resolve("dockets-test.refs.csv"), concat(refs, refs.get(1)));
+    Path out = Files.createDirectories(tmp.resolve("demo-out"));
+    for (String stem : List.of("voice-test", "dockets-test")) {
+      for (String kind : List.of(".picks.csv", ".summary.json", ".breakdown.csv"))
+        Files.writeString(out.resolve(stem + kind), "earlier output of " + stem + kind + "\n");
+    }
+    Map<String, String> before = Fixtures.snapshot(out);
+    Cli.Result r = Cli.runBuilt("demo", "--data-dir", tmp.resolve("project").toString(), "--out-dir", out.toString(), "--threads", "2");
+    assertThat(r.exit()).as("%s", r).isEqualTo(2);
+    assertThat(r.err()).contains("dockets-test.refs.csv").contains("twice");
+    assertThat(Fixtures.snapshot(out)).as("demo-out as before\n%s", r).isEqualTo(before);
+  }
+
+  private static List<String> concat(List<String> lines, String extra) {
+    List<String> out = new ArrayList<>(lines);
+    out.add(extra);
+    return out;
+  }
+
   private static void assertUnchangedAfterFailure(List<String> args, Path out) throws IOException {
     for (String a : args) {
       if (a.startsWith(out.toString()) && Files.isDirectory(Path.of(a).getParent()))
