@@ -55,6 +55,22 @@ class PipesAndStreamsTest {
     assertThat(r.out()).isEqualTo(file.out());
   }
 
+  /** {@code --hyps /dev/stdin} with standard input a pipe, in a child JVM: once "Illegal seek". */
+  @Test
+  void devStdinThatIsAPipeIsReadLikeAFile() throws Exception {
+    Path expected = dir.resolve("expected.json");
+    assertThat(Cli.runBuilt("score", "--hyps", HYPS.toString(), "--refs", REFS.toString(), "--json", expected.toString()).exit()).isZero();
+    Path actual = dir.resolve("actual.json");
+    Process p = Cli.start(java.util.List.of("-Xmx256m", "-XX:TieredStopAtLevel=1"), dir.resolve("out.txt"), dir.resolve("err.txt"),
+        "score", "--hyps", "/dev/stdin", "--refs", REFS.toString(), "--json", actual.toString());
+    try (OutputStream stdin = p.getOutputStream()) {
+      stdin.write(Files.readAllBytes(HYPS));
+    }
+    assertThat(p.waitFor(120, TimeUnit.SECONDS)).isTrue();
+    assertThat(p.exitValue()).as(Files.readString(dir.resolve("err.txt"))).isZero();
+    assertThat(Files.readString(actual).replace("/dev/stdin", "H")).isEqualTo(Files.readString(expected).replace(HYPS.toString(), "H"));
+  }
+
   @Test
   void lmTrainReadsItsCorpusFromStandardInputInOnePass() throws Exception {
     Path fromFile = dir.resolve("file.arpa");
