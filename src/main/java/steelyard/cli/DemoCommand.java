@@ -5,8 +5,11 @@ import java.io.PrintWriter;
 import java.net.URISyntaxException;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import java.util.concurrent.Callable;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
@@ -17,6 +20,7 @@ import steelyard.eval.EditCounts;
 import steelyard.io.FeatureSpec;
 import steelyard.io.ImportOptions;
 import steelyard.io.InputException;
+import steelyard.io.OutputSet;
 import steelyard.rescore.RescoreConfig;
 import steelyard.rescore.RescoreMethod;
 import steelyard.rescore.RescoreRun;
@@ -87,7 +91,14 @@ public final class DemoCommand implements Callable<Integer> {
                 .unit(Unit.CHAR)
                 .method(RescoreMethod.LATTICE)
                 .importOptions(imports).build()));
-    for (Part p : parts) printSummary(out, p, runPart(p, err));
+    // All six outputs are one set: the two runs stage into it, and a failure leaves the output folder as it was.
+    Map<String, Path> outputs = new LinkedHashMap<>();
+    for (Part p : parts) for (String kind : List.of(".picks.csv", ".summary.json", ".breakdown.csv")) outputs.put(p.stem() + kind, outDir.resolve(p.stem() + kind));
+    OutputSet outputSet = OutputSet.open(outputs, List.of());
+    List<RescoreRun.Result> results = new ArrayList<>();
+    for (Part p : parts) results.add(runPart(p, err));
+    outputSet.commit();
+    for (int i = 0; i < parts.size(); i++) printSummary(out, parts.get(i), results.get(i));
     out.println("Outputs in " + outDir + "/: *.picks.csv (the chosen transcript per utterance), *.summary.json, *.breakdown.csv (every hypothesis's score terms).");
     out.println("An automatic pick is not a verified transcript: transcripts with legal, medical or safety weight need review by a person.");
     out.flush();

@@ -58,6 +58,7 @@ public final class RescoreSummary {
   private final IntArrayList tokensPerUtterance = new IntArrayList();
   private final List<String> missingHypotheses = new ArrayList<>();
   private final List<String> missingReferences = new ArrayList<>();
+  private final List<String> notes = new ArrayList<>();
 
   /** Adds one rescored utterance; {@code errors} is null when it has no reference (or none were given). */
   public void add(UtteranceResult r, UtteranceErrors errors) {
@@ -101,6 +102,10 @@ public final class RescoreSummary {
     tokensPerUtterance.add(Math.toIntExact(c.referenceTokens()));
   }
 
+  /** Ids of references with no hypotheses, in the order recorded. */
+  public List<String> missingHypothesisIds() { return List.copyOf(missingHypotheses); }
+  /** Ids of hypothesis utterances with no reference, in input order. */
+  public List<String> missingReferenceIds() { return List.copyOf(missingReferences); }
   public long utterances() { return utterances; }
   public long changed() { return changed; }
   public long newTranscripts() { return newTranscripts; }
@@ -125,12 +130,20 @@ public final class RescoreSummary {
     return posteriorUtterances > 0 && 2 * collapsed > posteriorUtterances;
   }
 
-  /** Warnings about the run itself (collapsed posteriors), in a fixed order. */
+  /** Records a warning about the run found after it (e.g. few utterances shared with the references). */
+  public void warn(String warning) {
+    notes.add(warning);
+  }
+
+  /** Warnings about the run itself: those recorded by {@link #warn}, in order, then collapsed posteriors. */
   public List<String> warnings() {
-    if (!posteriorsCollapsed()) return List.of();
-    return List.of("posteriors are nearly all 0 or 1 (in " + collapsed + " of " + posteriorUtterances
-        + " utterances one hypothesis holds more than " + COLLAPSED_MASS
-        + " of its system's mass); tune α (the posterior sharpness), or pass --posterior-sharpness");
+    List<String> out = new ArrayList<>(notes);
+    if (posteriorsCollapsed()) {
+      out.add("posteriors are nearly all 0 or 1 (in " + collapsed + " of " + posteriorUtterances
+          + " utterances one hypothesis holds more than " + COLLAPSED_MASS
+          + " of its system's mass); tune α (the posterior sharpness), or pass --posterior-sharpness");
+    }
+    return List.copyOf(out);
   }
 
   /**
