@@ -15,6 +15,8 @@ import java.util.List;
 import java.util.concurrent.TimeUnit;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.ValueSource;
 import org.junit.jupiter.api.io.TempDir;
 
 class AtomicOutputTest {
@@ -113,6 +115,37 @@ class AtomicOutputTest {
     }
     assertThat(buf.toString(StandardCharsets.UTF_8)).isEqualTo("to stdout\n");
     assertThat(closed[0]).isFalse();
+  }
+
+  @ParameterizedTest
+  @ValueSource(strings = {"-", "/dev/stdout", "/dev/fd/1"})
+  void standardOutputGoesToTheCommandsOwnWriterWhichStaysOpen(String name) {
+    java.io.StringWriter sw = new java.io.StringWriter();
+    boolean[] closed = {false};
+    java.io.PrintWriter commandOut = new java.io.PrintWriter(sw) {
+      @Override
+      public void close() {
+        closed[0] = true;
+      }
+    };
+    AtomicOutput.writeText(Path.of(name), commandOut, w -> {
+      w.write("to the command's stdout\n");
+      w.close();
+    });
+    assertThat(sw.toString()).isEqualTo("to the command's stdout\n");
+    assertThat(closed[0]).isFalse();
+  }
+
+  @Test
+  void aFailingCommandWriterIsAnInputErrorNotASilentLoss() {
+    java.io.PrintWriter broken = new java.io.PrintWriter(java.io.Writer.nullWriter()) {
+      @Override
+      public boolean checkError() {
+        return true;
+      }
+    };
+    assertThatThrownBy(() -> AtomicOutput.writeText(Path.of("-"), broken, w -> w.write("lost\n")))
+        .isInstanceOf(InputException.class).hasMessageContaining("cannot write to standard output");
   }
 
   @Test
