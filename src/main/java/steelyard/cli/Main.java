@@ -26,6 +26,8 @@ import steelyard.io.OutputSet;
       CompareCommand.class,
       LmCommand.class,
       RescoreCommand.class,
+      TuneCommand.class,
+      AuditCommand.class,
       NetworkCommand.class,
       RunsCommand.class,
       DemoDataCommand.class,

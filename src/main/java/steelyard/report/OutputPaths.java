@@ -1,8 +1,10 @@
 package steelyard.report;
 
+import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Map;
+import steelyard.io.InputException;
 import steelyard.io.OutputSet;
 import steelyard.io.OutputTarget;
 
@@ -16,6 +18,22 @@ public final class OutputPaths {
    */
   public static void refuseClashes(Map<String, Path> outputsByOption, List<Path> inputs) {
     OutputSet.refuseClashes(outputsByOption, inputs);
+  }
+
+  /**
+   * Throws an {@link InputException} when an output file (null and {@code -} ignored) cannot be created: its
+   * directory does not exist, or the path is a directory. Called before any work, so that a run whose outputs
+   * cannot all be written writes none of them.
+   */
+  public static void requireWritable(Iterable<Path> outputs) {
+    for (Path p : outputs) {
+      if (p == null || isStdout(p)) continue;
+      Path abs = p.toAbsolutePath().normalize();
+      if (Files.isDirectory(abs)) throw InputException.inFile(p, "is a directory", "a file path for the output");
+      Path dir = abs.getParent();
+      if (dir == null || !Files.isDirectory(dir))
+        throw InputException.inFile(p, "directory " + dir + " does not exist", "an output path in an existing directory");
+    }
   }
 
   /** Whether {@code p} is standard output: {@code -}, or this process's {@code /dev/stdout} ({@link OutputTarget.Kind#STDOUT}). */

@@ -79,33 +79,68 @@ public final class RescoreRun {
   public static Result run(RescoreSession session, Path hyps, Path refs, Outputs outputs, int threads, long seed,
       List<SkippedRow> skipped, Writer stdout, List<String> callerWarnings) {
     Map<String, Reference> references = refs == null ? null : session.readReferences(refs);
-    PicksWriter writer = new PicksWriter(session.featureNames(), session.unit());
     RescoreSummary[] summary = new RescoreSummary[1];
     Set<String> systemsSeen = new HashSet<>();
+    writeRows(session, outputs, stdout, sink -> {
+      try {
+        summary[0] = session.run(hyps, references, threads, o -> {
+          systemsSeen.addAll(o.result().scores().systems());
+          sink.accept(o.result());
+        });
+      } catch (UncheckedIOException e) {
+        throw e.getCause();
+      }
+      // Inside the writes: a refused run leaves the picks and breakdown unwritten.
+      refuseWrongAnswers(session, hyps, refs, references, summary[0], systemsSeen);
+    });
+    return finish(session, summary[0], refs != null, outputs, threads, seed, skipped, stdout, callerWarnings);
+  }
+
+  /**
+   * Writes the outputs of a run already chosen in memory (e.g. by {@code report.AuditRun}) exactly as {@link #run}
+   * writes them for the same choices: picks and breakdown rows of {@code results} in their order, the JSON summary
+   * of {@code summary} with its bootstrap interval and paired test (same seed, so the same figures), the weights.
+   *
+   * @param results        every rescored utterance, in input order
+   * @param withReferences whether {@code summary} holds error counts
+   */
+  public static Result write(RescoreSession session, List<UtteranceResult> results, RescoreSummary summary, boolean withReferences,
+      Outputs outputs, int threads, long seed, Writer stdout) {
+    writeRows(session, outputs, stdout, sink -> {
+      for (UtteranceResult r : results) sink.accept(r);
+    });
+    return finish(session, summary, withReferences, outputs, threads, seed, List.of(), stdout, List.of());
+  }
+
+  /** Receives rescored utterances in input order. */
+  private interface RowSink {
+    void accept(UtteranceResult r) throws IOException;
+  }
+
+  /** Hands every rescored utterance to the sink, in input order. */
+  private interface Rows {
+    void each(RowSink sink) throws IOException;
+  }
+
+  /** Writes picks.csv and the breakdown (when asked) of the rows, each file atomically. */
+  private static void writeRows(RescoreSession session, Outputs outputs, Writer stdout, Rows rows) {
+    PicksWriter writer = new PicksWriter(session.featureNames(), session.unit());
     try {
       write(outputs.picks(), stdout, pw -> write(outputs.breakdown(), stdout, bw -> {
         CsvWriter picks = CsvWriter.plain(pw);
         CsvWriter breakdown = CsvWriter.plain(bw);
         writer.picksHeader(picks);
         if (outputs.breakdown() != null) writer.breakdownHeader(breakdown);
-        try {
-          summary[0] = session.run(hyps, references, threads, o -> {
-            systemsSeen.addAll(o.result().scores().systems());
-            writer.pick(picks, o.result());
-            if (outputs.breakdown() != null) writer.breakdown(breakdown, o.result());
-          });
-        } catch (UncheckedIOException e) {
-          throw e.getCause();
-        }
-        // Inside the writes: a refused run leaves the picks and breakdown unwritten.
-        refuseWrongAnswers(session, hyps, refs, references, summary[0], systemsSeen);
+        rows.each(r -> {
+          writer.pick(picks, r);
+          if (outputs.breakdown() != null) writer.breakdown(breakdown, r);
+        });
         picks.flush();
         breakdown.flush();
       }));
     } catch (IOException e) {
       throw new UncheckedIOException(e);
     }
-    return finish(session, summary[0], refs != null, outputs, threads, seed, skipped, stdout, callerWarnings);
   }
 
   /** Files about different utterances, or a system weight for a system the file lacks: refused; a small overlap: a warning. */
@@ -124,8 +159,7 @@ public final class RescoreRun {
     Bootstrap.Interval ci = null;
     PairedComparison paired = null;
     if (withReferences) {
-      ci = Bootstrap.corpusRate(summary.errorsPerUtterance(), summary.referenceTokensPerUtterance(),
-          Bootstrap.DEFAULT_RESAMPLES, seed, threads);
+      ci = summary.interval(Bootstrap.DEFAULT_RESAMPLES, seed, threads);
       paired = summary.versusFirst(Bootstrap.DEFAULT_RESAMPLES, seed, threads);
     }
     ObjectNode node = summary.toJson(session.method().label(), session.unit().label(), seed, withReferences,

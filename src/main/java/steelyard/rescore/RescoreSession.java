@@ -82,7 +82,7 @@ public final class RescoreSession {
    */
   public static RescoreSession open(RescoreConfig config) {
     SessionSetup s = new SessionSetup(config);
-    return new RescoreSession(s, s.weights, config.method());
+    return new RescoreSession(s, s.weights, s.method);
   }
 
   /**
@@ -121,6 +121,16 @@ public final class RescoreSession {
    */
   public boolean usesModel() {
     return SessionSetup.modelNeeded(weights(), method());
+  }
+
+  /** The scoring normalisation in one line ({@link steelyard.text.Normaliser#describe()}), as a run history records it. */
+  public String normalisationDescription() {
+    return setup.normalisation;
+  }
+
+  /** The model's tokenisation of raw text (how ln P is scored), or null without a model. */
+  public Tokenizer modelTokens() {
+    return setup.model == null ? null : setup.lmTokens;
   }
 
   /** The model file's identity (hashes the file on the first call, then cached); null without a model file. */
@@ -209,6 +219,12 @@ public final class RescoreSession {
    * @param refs references file, or null
    */
   public ScoredSet loadAll(Path hyps, Path refs, int threads, LoadListener listener, BooleanSupplier cancelled) {
-    return SessionRuns.load(this, hyps, refs == null ? null : readReferences(refs), threads, listener, cancelled);
+    return loadWithReferences(hyps, refs == null ? null : readReferences(refs), threads, listener, cancelled);
+  }
+
+  /** As {@link #loadAll(Path, Path, int, LoadListener, BooleanSupplier)} with references already read (may be null). */
+  public ScoredSet loadWithReferences(Path hyps, Map<String, Reference> references, int threads, LoadListener listener,
+      BooleanSupplier cancelled) {
+    return SessionRuns.load(this, hyps, references, threads, listener, cancelled);
   }
 }

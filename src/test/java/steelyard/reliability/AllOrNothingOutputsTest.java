@@ -80,7 +80,7 @@ class AllOrNothingOutputsTest {
   }
 
   /**
-   * The demo runs two rescorings; when the second fails (its references have a duplicate id on the last line),
+   * The demo tunes and rescores two data sets; when the second fails (its references have a duplicate id on the last line),
    * the first one's picks, summary and breakdown must not have replaced the earlier ones either.
    */
   @org.junit.jupiter.api.Test
@@ -88,17 +88,19 @@ class AllOrNothingOutputsTest {
     Path project = Path.of("").toAbsolutePath();
     Path data = Files.createDirectories(tmp.resolve("project/sample-hypotheses"));
     Path models = Files.createDirectories(tmp.resolve("project/models"));
-    for (String f : List.of("voice-test.nbest.csv", "voice-test.refs.csv", "voice.rules", "dockets-test.nbest.csv"))
+    for (String f : List.of("voice-dev.nbest.csv", "voice-dev.refs.csv", "voice-test.nbest.csv", "voice-test.refs.csv", "voice.rules",
+        "dockets-dev.nbest.csv", "dockets-dev.refs.csv", "dockets-test.nbest.csv"))
       Files.createSymbolicLink(data.resolve(f), project.resolve("sample-hypotheses").resolve(f));
     for (String f : List.of("voice-3gram.arpa.gz", "voice-demo.weights.json", "dockets-char-5gram.arpa.gz", "dockets-demo.weights.json"))
       Files.createSymbolicLink(models.resolve(f), project.resolve("models").resolve(f));
     List<String> refs = Files.readAllLines(project.resolve("sample-hypotheses/dockets-test.refs.csv"));
     Files.write(data.resolve("dockets-test.refs.csv"), concat(refs, refs.get(1)));
     Path out = Files.createDirectories(tmp.resolve("demo-out"));
-    for (String stem : List.of("voice-test", "dockets-test")) {
-      for (String kind : List.of(".picks.csv", ".summary.json", ".breakdown.csv"))
+    for (String stem : List.of("voice", "dockets")) {
+      for (String kind : List.of(".weights.json", "-dev.tune.json", "-test.picks.csv", "-test.summary.json", "-test.breakdown.csv"))
         Files.writeString(out.resolve(stem + kind), "earlier output of " + stem + kind + "\n");
     }
+    Files.writeString(out.resolve("report.html"), "earlier report\n");
     Map<String, String> before = Fixtures.snapshot(out);
     Cli.Result r = Cli.runBuilt("demo", "--data-dir", tmp.resolve("project").toString(), "--out-dir", out.toString(), "--threads", "2");
     assertThat(r.exit()).as("%s", r).isEqualTo(2);
