@@ -24,6 +24,7 @@ import steelyard.io.InputException;
       RescoreCommand.class,
       NetworkCommand.class,
       DemoDataCommand.class,
+      GuiCommand.class,
       CommandLine.HelpCommand.class
     })
 public final class Main implements Runnable {
