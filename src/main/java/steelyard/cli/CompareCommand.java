@@ -23,7 +23,7 @@ import steelyard.io.Reference;
 import steelyard.io.ReferencesReader;
 import steelyard.io.SkippedRow;
 import steelyard.report.CompareReport;
-import steelyard.report.JsonOutput;
+import steelyard.io.JsonOutput;
 import steelyard.report.OutputPaths;
 import steelyard.text.Normaliser;
 import steelyard.text.Unit;
@@ -65,6 +65,7 @@ public final class CompareCommand implements Callable<Integer> {
 
   @Mixin NormalisationInput normalisation;
   @Mixin RunInput run;
+  @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
   @Option(names = "--refs", required = true, paramLabel = "FILE", description = "References CSV (utt_id,text[,group]; .gz accepted).")
   Path refs;
@@ -118,8 +119,8 @@ public final class CompareCommand implements Callable<Integer> {
         new CompareReport.SystemRun(display.get(1), label(fileB, 1), b),
         comparison, run.seed, skipped, warnings);
 
-    if (json != null) JsonOutput.write(json, CompareReport.json(report));
-    ScoreCommand.printReport(json, CompareReport.text(report));
+    if (json != null) JsonOutput.write(json, CompareReport.json(report), spec.commandLine().getOut());
+    ScoreCommand.printReport(spec, json, CompareReport.text(report));
     return Main.OK;
   }
 
@@ -142,11 +143,12 @@ public final class CompareCommand implements Callable<Integer> {
     return new ImportOptions(specs, primarySystem, maxBadRows,
         w -> {
           warnings.add(w);
-          System.err.println("steelyard: warning: " + w);
+          RescoreSupport.warn(spec.commandLine().getErr(), w);
         },
         s -> {
           skipped.add(s);
-          System.err.println("steelyard: skipped " + s.file() + ":" + s.line() + ": " + s.reason());
+          spec.commandLine().getErr().println("steelyard: skipped " + s.file() + ":" + s.line() + ": " + s.reason());
+          spec.commandLine().getErr().flush();
         });
   }
 }

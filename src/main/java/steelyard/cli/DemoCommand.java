@@ -1,13 +1,10 @@
 package steelyard.cli;
 
-import com.fasterxml.jackson.databind.JsonNode;
-import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.net.URISyntaxException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
@@ -16,7 +13,17 @@ import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
+import steelyard.eval.EditCounts;
+import steelyard.io.FeatureSpec;
+import steelyard.io.ImportOptions;
 import steelyard.io.InputException;
+import steelyard.rescore.RescoreConfig;
+import steelyard.rescore.RescoreMethod;
+import steelyard.rescore.RescoreRun;
+import steelyard.rescore.RescoreSession;
+import steelyard.rescore.RescoreSummary;
+import steelyard.text.NormalisationOptions;
+import steelyard.text.Unit;
 
 /**
  * Runs the main job on the bundled demo data: the invented produce-warehouse cooperative's voice logs
@@ -41,11 +48,11 @@ public final class DemoCommand implements Callable<Integer> {
 
   @Mixin RunInput run;
 
-  /** One demo run: a label, its output stem and the rescore arguments that differ. */
-  private record Part(String label, String stem, List<String> args) {}
+  /** One demo run: a label, its output stem, its hypotheses and references files, and its rescoring configuration. */
+  private record Part(String label, String stem, Path hyps, Path refs, RescoreConfig config) {}
 
   @Override
-  public Integer call() throws IOException {
+  public Integer call() {
     Path root = dataDir != null ? dataDir : projectRoot();
     Path data = root.resolve("sample-hypotheses");
     Path models = root.resolve("models");
@@ -57,70 +64,59 @@ public final class DemoCommand implements Callable<Integer> {
       throw InputException.option("--out-dir", "cannot create " + outDir + " (" + e.getMessage() + ")", "a writable folder");
     }
     PrintWriter out = spec.commandLine().getOut();
+    PrintWriter err = spec.commandLine().getErr();
     out.println("Steelyard demo: the invented Tallowmere Produce Cooperative (voice logs and scanned delivery dockets)");
     out.println("Weights were chosen on the dev sets (models/*-demo.weights.json); results below are on the held-out test sets.");
     out.println();
+    ImportOptions imports = new ImportOptions(List.of(), null, 0, w -> RescoreSupport.warn(err, w), s -> { });
     List<Part> parts = List.of(
-        new Part("Voice logs, word N-best rescoring (acoustic + first-pass LM + domain 3-gram)", "voice-test", List.of(
-            "--hyps", data.resolve("voice-test.nbest.csv").toString(),
-            "--refs", data.resolve("voice-test.refs.csv").toString(),
-            "--rules", data.resolve("voice.rules").toString(),
-            "--lm", models.resolve("voice-3gram.arpa.gz").toString(),
-            "--weights", models.resolve("voice-demo.weights.json").toString(),
-            "--features", "acoustic,lm", "--method", "nbest")),
-        new Part("Delivery dockets, OCR system combination in a character confusion network with a 5-gram", "dockets-test", List.of(
-            "--hyps", data.resolve("dockets-test.nbest.csv").toString(),
-            "--refs", data.resolve("dockets-test.refs.csv").toString(),
-            "--lm", models.resolve("dockets-char-5gram.arpa.gz").toString(),
-            "--weights", models.resolve("dockets-demo.weights.json").toString(),
-            "--features", "confidence", "--unit", "char", "--method", "lattice")));
-    for (Part p : parts) {
-      int code = runPart(p);
-      if (code != 0) return code;
-      printSummary(out, p);
-    }
+        new Part("Voice logs, word N-best rescoring (acoustic + first-pass LM + domain 3-gram)", "voice-test",
+            data.resolve("voice-test.nbest.csv"), data.resolve("voice-test.refs.csv"), RescoreConfig.builder()
+                .features(FeatureSpec.parseList("acoustic,lm"))
+                .normalisation(new NormalisationOptions(false, false, false, false, data.resolve("voice.rules")))
+                .modelPath(models.resolve("voice-3gram.arpa.gz"))
+                .weightsFile(models.resolve("voice-demo.weights.json"))
+                .unit(Unit.WORD)
+                .method(RescoreMethod.NBEST)
+                .importOptions(imports).build()),
+        new Part("Delivery dockets, OCR system combination in a character confusion network with a 5-gram", "dockets-test",
+            data.resolve("dockets-test.nbest.csv"), data.resolve("dockets-test.refs.csv"), RescoreConfig.builder()
+                .features(FeatureSpec.parseList("confidence"))
+                .modelPath(models.resolve("dockets-char-5gram.arpa.gz"))
+                .weightsFile(models.resolve("dockets-demo.weights.json"))
+                .unit(Unit.CHAR)
+                .method(RescoreMethod.LATTICE)
+                .importOptions(imports).build()));
+    for (Part p : parts) printSummary(out, p, runPart(p, err));
     out.println("Outputs in " + outDir + "/: *.picks.csv (the chosen transcript per utterance), *.summary.json, *.breakdown.csv (every hypothesis's score terms).");
     out.println("An automatic pick is not a verified transcript: transcripts with legal, medical or safety weight need review by a person.");
     out.flush();
-    return 0;
+    return Main.OK;
   }
 
-  private int runPart(Part p) {
-    List<String> args = new ArrayList<>();
-    args.add("rescore");
-    args.addAll(p.args());
-    args.addAll(List.of(
-        "--out", outDir.resolve(p.stem() + ".picks.csv").toString(),
-        "--json", outDir.resolve(p.stem() + ".summary.json").toString(),
-        "--breakdown", outDir.resolve(p.stem() + ".breakdown.csv").toString(),
-        "--threads", Integer.toString(run.threads),
-        "--seed", Long.toString(run.seed)));
-    CommandLine cl = Main.commandLine();
-    cl.setOut(spec.commandLine().getOut());
-    // The rescore summary on stderr repeats what printSummary shows; keep only warnings, or all on failure.
-    java.io.StringWriter captured = new java.io.StringWriter();
-    cl.setErr(new PrintWriter(captured, true));
-    int code = cl.execute(args.toArray(new String[0]));
-    PrintWriter err = spec.commandLine().getErr();
-    for (String line : captured.toString().split("\n")) {
-      if (code != 0 || line.startsWith("steelyard: warning")) err.println(line);
-    }
-    err.flush();
-    return code;
+  private RescoreRun.Result runPart(Part p, PrintWriter err) {
+    RescoreSession session = RescoreSession.open(p.config());
+    session.warnings().forEach(w -> RescoreSupport.warn(err, w));
+    RescoreRun.Outputs outputs = new RescoreRun.Outputs(outDir.resolve(p.stem() + ".picks.csv"), outDir.resolve(p.stem() + ".breakdown.csv"),
+        outDir.resolve(p.stem() + ".summary.json"), null);
+    return RescoreRun.run(session, p.hyps(), p.refs(), outputs, run.effectiveThreads(), run.seed, List.of(), spec.commandLine().getOut());
   }
 
-  private void printSummary(PrintWriter out, Part p) throws IOException {
-    JsonNode j = new ObjectMapper().readTree(outDir.resolve(p.stem() + ".summary.json").toFile());
-    String unit = "char".equals(j.path("unit").asText()) ? "CER" : "WER";
+  private static void printSummary(PrintWriter out, Part p, RescoreRun.Result r) {
+    RescoreSummary s = r.summary();
+    String unit = p.config().unit() == Unit.CHAR ? "CER" : "WER";
     out.println(p.label());
     out.printf(Locale.ROOT, "  %s chosen   %6.2f %%  (95 %% interval %.2f %% to %.2f %%)%n", unit,
-        100 * j.path("error_rate").asDouble(), 100 * j.path("ci95_low").asDouble(), 100 * j.path("ci95_high").asDouble());
-    out.printf(Locale.ROOT, "  %s rank 1   %6.2f %%  (the recogniser's own choice)%n", unit, 100 * j.path("first_error_rate").asDouble());
-    out.printf(Locale.ROOT, "  %s oracle   %6.2f %%  (best hypothesis in each list: the N-best lower bound)%n", unit,
-        100 * j.path("oracle_error_rate").asDouble());
-    out.printf(Locale.ROOT, "  %d of %d choices differ from rank 1%s%n%n", j.path("changed").asInt(), j.path("utterances").asInt(),
-        j.path("new_transcripts").asInt() > 0 ? "; " + j.path("new_transcripts").asInt() + " are new transcripts no single output contains" : "");
+        100 * rate(s.chosen()), 100 * r.ci95().low(), 100 * r.ci95().high());
+    out.printf(Locale.ROOT, "  %s rank 1   %6.2f %%  (the recogniser's own choice)%n", unit, 100 * rate(s.first()));
+    out.printf(Locale.ROOT, "  %s oracle   %6.2f %%  (best hypothesis in each list: the N-best lower bound)%n", unit, 100 * rate(s.oracle()));
+    out.printf(Locale.ROOT, "  %d of %d choices differ from rank 1%s%n%n", s.changed(), s.scored(),
+        s.newTranscripts() > 0 ? "; " + s.newTranscripts() + " are new transcripts no single output contains" : "");
     out.flush();
+  }
+
+  private static double rate(EditCounts c) {
+    return (double) c.errors() / c.referenceTokens();
   }
 
   /** The folder above {@code target/} when running from the built jar, else the current folder. */

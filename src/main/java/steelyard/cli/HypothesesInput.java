@@ -1,5 +1,6 @@
 package steelyard.cli;
 
+import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -32,18 +33,22 @@ public final class HypothesesInput {
     return FeatureSpec.parseList(features);
   }
 
-  /** Import options; warnings and skipped rows go to stderr, skipped rows are also collected. */
-  public ImportOptions importOptions() {
+  /** Import options; warnings and skipped rows go to {@code err}, skipped rows are also collected. */
+  public ImportOptions importOptions(PrintWriter err) {
     return new ImportOptions(
         featureSpecs(),
         primarySystem,
         maxBadRows,
-        w -> System.err.println("steelyard: warning: " + w),
+        w -> {
+          err.println("steelyard: warning: " + w);
+          err.flush();
+        },
         s -> {
           synchronized (skipped) {
             skipped.add(s);
           }
-          System.err.println("steelyard: skipped " + s.file() + ":" + s.line() + ": " + s.reason());
+          err.println("steelyard: skipped " + s.file() + ":" + s.line() + ": " + s.reason());
+          err.flush();
         });
   }
 }

@@ -1,7 +1,5 @@
 package steelyard.cli;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.nio.file.Path;
@@ -11,6 +9,7 @@ import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
+import steelyard.io.JsonOutput;
 import steelyard.lm.CompactModel;
 import steelyard.lm.ModelFiles;
 import steelyard.text.NormalisationOptions;
@@ -30,7 +29,7 @@ public final class LmInfoCommand implements Callable<Integer> {
     CompactModel lm = input.load(spec.commandLine().getErr());
     ObjectNode o = describe(lm, input.lm);
     if (json != null) {
-      LmModelInput.writeText(json, w -> w.write(new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT).writeValueAsString(o) + "\n"));
+      JsonOutput.write(json, o, spec.commandLine().getOut());
       if (json.toString().equals("-")) return 0;
     }
     StringBuilder sb = new StringBuilder();
@@ -51,7 +50,7 @@ public final class LmInfoCommand implements Callable<Integer> {
   }
 
   static ObjectNode describe(CompactModel lm, Path file) {
-    ObjectNode o = new ObjectMapper().createObjectNode();
+    ObjectNode o = JsonOutput.object();
     o.put("model", file.toString());
     o.put("format", ModelFiles.kind(file) == ModelFiles.Kind.BINARY ? "binary" : "arpa");
     o.put("order", lm.order());

@@ -1,7 +1,5 @@
 package steelyard.cli;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import it.unimi.dsi.fastutil.doubles.DoubleArrayList;
@@ -17,6 +15,7 @@ import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import steelyard.io.AtomicOutput;
+import steelyard.io.JsonOutput;
 import steelyard.io.InputException;
 import steelyard.lm.BackoffModel;
 import steelyard.lm.LmState;
@@ -65,7 +64,8 @@ public final class LmMixCommand implements Callable<Integer> {
     AtomicOutput.refuseOverwritingInput(out, inputs.toArray(new Path[0]));
     if (json != null) AtomicOutput.refuseOverwritingInput(json, inputs.toArray(new Path[0]));
     List<BackoffModel> comps = new ArrayList<>();
-    for (Path m : models) comps.add(ModelFiles.loadExact(m));
+    ModelFiles.LoadOptions loading = new ModelFiles.LoadOptions(BackoffModel.DEFAULT_UNKNOWN_FLOOR_LOG10, w -> LmModelInput.warn(err, w), null);
+    for (Path m : models) comps.add(ModelFiles.loadExact(m, loading));
     double[] start = new double[comps.size()];
     java.util.Arrays.fill(start, 1.0 / comps.size());
     MixtureModel uniform = new MixtureModel(comps, start);
@@ -81,7 +81,7 @@ public final class LmMixCommand implements Callable<Integer> {
     ModelFiles.save(approx, out);
 
     ObjectNode report = report(fit, exact, written);
-    if (json != null) AtomicOutput.writeText(json, w -> w.write(new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT).writeValueAsString(report) + "\n"));
+    if (json != null) JsonOutput.write(json, report, spec.commandLine().getOut());
     if (json == null || !json.toString().equals("-")) printText(fit, exact, written);
     return 0;
   }
@@ -127,7 +127,7 @@ public final class LmMixCommand implements Callable<Integer> {
   }
 
   private ObjectNode report(MixtureWeights.Fit fit, PerplexityResult exact, PerplexityResult written) {
-    ObjectNode o = new ObjectMapper().createObjectNode();
+    ObjectNode o = JsonOutput.object();
     ArrayNode comps = o.putArray("components");
     for (int i = 0; i < models.size(); i++) {
       ObjectNode c = comps.addObject();

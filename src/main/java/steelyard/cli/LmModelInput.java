@@ -6,12 +6,10 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.function.Function;
-import me.tongfei.progressbar.ConsoleProgressBarConsumer;
 import me.tongfei.progressbar.ProgressBar;
 import me.tongfei.progressbar.ProgressBarBuilder;
 import picocli.CommandLine;
 import picocli.CommandLine.Option;
-import steelyard.io.AtomicOutput;
 import steelyard.io.InputException;
 import steelyard.io.InputFiles;
 import steelyard.lm.BackoffModel;
@@ -19,6 +17,7 @@ import steelyard.lm.CompactModel;
 import steelyard.lm.LanguageModel;
 import steelyard.lm.LoadProgress;
 import steelyard.lm.ModelFiles;
+import steelyard.lm.ModelText;
 import steelyard.text.NormalisationOptions;
 import steelyard.text.Normaliser;
 import steelyard.text.Unit;
@@ -46,13 +45,13 @@ public final class LmModelInput {
   }
 
   private ModelFiles.LoadOptions options(PrintWriter err) {
-    boolean show = progress || System.console() != null;
-    return new ModelFiles.LoadOptions(unknownLog10, w -> warn(err, w), show ? new Bar() : null);
+    return new ModelFiles.LoadOptions(unknownLog10, w -> warn(err, w), ConsoleProgress.wanted(progress) ? new Bar(err) : null);
   }
 
   /**
-   * The tokenizer for held-out text: the model's recorded unit and normalisation (plus the user's rules file,
-   * which a model cannot record); a warning when the user's own normalisation options differ from the model's.
+   * The tokenizer for held-out text, by the one rule of {@link ModelText} (the model's recorded unit and
+   * normalisation plus the user's rules file); a warning when the user's own normalisation options differ from
+   * the model's.
    */
   static Function<String, List<String>> tokenizer(LanguageModel lm, NormalisationInput user, CommandLine.ParseResult parsed, PrintWriter err) {
     NormalisationOptions mine = user.options();
@@ -68,9 +67,7 @@ public final class LmModelInput {
           + ") differ from the model's (" + lm.unit().name().toLowerCase(java.util.Locale.ROOT) + ", " + LmInfoCommand.describe(model)
           + "); the text is normalised as the model was trained");
     }
-    NormalisationOptions used = new NormalisationOptions(model.foldCase(), model.stripPunctuation(), model.splitHyphens(),
-        model.ignoreWhitespace(), user.rules != null ? user.rules : model.rulesFile());
-    Normaliser normaliser = Normaliser.create(used);
+    Normaliser normaliser = ModelText.normaliser(lm, user.rules);
     Unit unit = lm.unit();
     return raw -> normaliser.tokenList(raw, unit);
   }
@@ -97,19 +94,19 @@ public final class LmModelInput {
     err.flush();
   }
 
-  /** Writes UTF-8 text atomically to {@code target}, or to stdout when it is {@code -}. */
-  static void writeText(Path target, AtomicOutput.WriterBody body) {
-    AtomicOutput.writeText(target, body);
-  }
-
-  /** Progress on stderr. */
+  /** Progress on the command's stderr. */
   private static final class Bar implements LoadProgress {
+    private final PrintWriter err;
     private ProgressBar bar;
+
+    Bar(PrintWriter err) {
+      this.err = err;
+    }
 
     @Override
     public void start(long total) {
       bar = new ProgressBarBuilder().setTaskName("reading n-grams").setInitialMax(total)
-          .setConsumer(new ConsoleProgressBarConsumer(System.err)).setUpdateIntervalMillis(250).build();
+          .setConsumer(new ConsoleProgress(err)).setUpdateIntervalMillis(250).build();
     }
 
     @Override

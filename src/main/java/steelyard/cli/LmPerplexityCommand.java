@@ -1,7 +1,5 @@
 package steelyard.cli;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.PrintWriter;
 import java.nio.file.Path;
@@ -11,6 +9,7 @@ import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
+import steelyard.io.JsonOutput;
 import steelyard.lm.CompactModel;
 import steelyard.lm.eval.Perplexity;
 import steelyard.lm.eval.PerplexityResult;
@@ -39,7 +38,7 @@ public final class LmPerplexityCommand implements Callable<Integer> {
     PerplexityResult r = ppl.result();
     if (json != null) {
       ObjectNode o = json(r);
-      LmModelInput.writeText(json, w -> w.write(new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT).writeValueAsString(o) + "\n"));
+      JsonOutput.write(json, o, spec.commandLine().getOut());
       if (json.toString().equals("-")) return 0;
     }
     PrintWriter out = spec.commandLine().getOut();
@@ -54,7 +53,7 @@ public final class LmPerplexityCommand implements Callable<Integer> {
   }
 
   private ObjectNode json(PerplexityResult r) {
-    ObjectNode o = new ObjectMapper().createObjectNode();
+    ObjectNode o = JsonOutput.object();
     o.put("model", input.lm.toString());
     o.put("text", text.toString());
     o.put("sentences", r.sentences());

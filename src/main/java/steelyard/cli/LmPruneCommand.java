@@ -1,7 +1,5 @@
 package steelyard.cli;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.SerializationFeature;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.PrintWriter;
@@ -16,6 +14,7 @@ import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import steelyard.io.AtomicOutput;
+import steelyard.io.JsonOutput;
 import steelyard.io.InputException;
 import steelyard.lm.BackoffModel;
 import steelyard.lm.LanguageModel;
@@ -71,7 +70,7 @@ public final class LmPruneCommand implements Callable<Integer> {
       after = perplexity(r.model(), sentences);
     }
     ObjectNode report = report(r, before, after);
-    if (json != null) AtomicOutput.writeText(json, w -> w.write(new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT).writeValueAsString(report) + "\n"));
+    if (json != null) JsonOutput.write(json, report, spec.commandLine().getOut());
     if (json == null || !json.toString().equals("-")) printText(r, before, after);
     return 0;
   }
@@ -84,7 +83,7 @@ public final class LmPruneCommand implements Callable<Integer> {
   }
 
   private ObjectNode report(EntropyPruner.Result r, PerplexityResult before, PerplexityResult after) {
-    ObjectNode o = new ObjectMapper().createObjectNode();
+    ObjectNode o = JsonOutput.object();
     o.put("model", input.lm.toString());
     o.put("threshold_nats", threshold);
     ArrayNode orders = o.putArray("orders");

@@ -1,6 +1,8 @@
 package steelyard.cli;
 
+import java.io.IOException;
 import java.io.PrintWriter;
+import java.io.UncheckedIOException;
 import java.nio.file.Path;
 import java.util.Locale;
 import java.util.concurrent.Callable;
@@ -8,6 +10,8 @@ import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
+import steelyard.io.AtomicOutput;
+import steelyard.io.CsvWriter;
 import steelyard.lm.CompactModel;
 import steelyard.lm.eval.Perplexity;
 import steelyard.lm.eval.SentenceScore;
@@ -33,20 +37,18 @@ public final class LmSentenceScoresCommand implements Callable<Integer> {
     CompactModel lm = input.load(err);
     var tokenizer = LmModelInput.tokenizer(lm, normalisation, spec.commandLine().getParseResult(), err);
     Perplexity scorer = new Perplexity(lm);
-    LmModelInput.writeText(csv, w -> {
-      w.write("line,tokens,oov,log10_prob\n");
-      StringBuilder sb = new StringBuilder();
+    AtomicOutput.writeText(csv, spec.commandLine().getOut(), w -> {
+      CsvWriter rows = CsvWriter.plain(w);
+      rows.row("line", "tokens", "oov", "log10_prob");
       LmModelInput.forEachSentence(text, tokenizer, (line, tokens) -> {
         SentenceScore s = scorer.add(line, tokens);
-        sb.setLength(0);
-        sb.append(s.line()).append(',').append(s.words()).append(',').append(s.oov()).append(',')
-            .append(String.format(Locale.ROOT, "%.6f", s.log10Prob())).append('\n');
         try {
-          w.write(sb.toString());
-        } catch (java.io.IOException e) {
-          throw new java.io.UncheckedIOException(e);
+          rows.row(Long.toString(s.line()), Integer.toString(s.words()), Integer.toString(s.oov()), String.format(Locale.ROOT, "%.6f", s.log10Prob()));
+        } catch (IOException e) {
+          throw new UncheckedIOException(e);
         }
       });
+      rows.flush();
     });
     return 0;
   }

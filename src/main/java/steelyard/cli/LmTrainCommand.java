@@ -1,7 +1,5 @@
 package steelyard.cli;
 
-import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.SerializationFeature;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Files;
@@ -12,7 +10,6 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.concurrent.Callable;
-import me.tongfei.progressbar.ConsoleProgressBarConsumer;
 import me.tongfei.progressbar.ProgressBar;
 import me.tongfei.progressbar.ProgressBarBuilder;
 import me.tongfei.progressbar.ProgressBarStyle;
@@ -21,7 +18,7 @@ import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
-import steelyard.io.AtomicOutput;
+import steelyard.io.JsonOutput;
 import steelyard.io.InputException;
 import steelyard.lm.ModelFiles;
 import steelyard.lm.train.CorpusFile;
@@ -120,9 +117,9 @@ public final class LmTrainCommand implements Callable<Integer> {
   }
 
   private ProgressBar progressBar() {
-    if (!progress && System.console() == null) return null;
+    if (!ConsoleProgress.wanted(progress)) return null;
     return new ProgressBarBuilder().setTaskName("counting").setInitialMax(-1).setUnit(" sentences", 1)
-        .setStyle(ProgressBarStyle.ASCII).setConsumer(new ConsoleProgressBarConsumer(System.err))
+        .setStyle(ProgressBarStyle.ASCII).setConsumer(new ConsoleProgress(spec.commandLine().getErr()))
         .setUpdateIntervalMillis(500).build();
   }
 
@@ -173,10 +170,6 @@ public final class LmTrainCommand implements Callable<Integer> {
     m.put("warnings", r.warnings());
     m.put("seconds_training", r.seconds());
     m.put("seconds_writing", saveSeconds);
-    ObjectMapper mapper = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
-    AtomicOutput.writeText(json, w -> {
-      mapper.writer().without(com.fasterxml.jackson.core.JsonGenerator.Feature.AUTO_CLOSE_TARGET).writeValue(w, m);
-      w.write(System.lineSeparator());
-    });
+    JsonOutput.write(json, JsonOutput.tree(m), spec.commandLine().getOut());
   }
 }

@@ -1,6 +1,8 @@
 package steelyard.cli;
 
+import java.io.OutputStreamWriter;
 import java.io.PrintWriter;
+import java.nio.charset.StandardCharsets;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import steelyard.io.InputException;
@@ -54,6 +56,9 @@ public final class Main implements Runnable {
     cl.setExecutionExceptionHandler(Main::handleExecutionException);
     cl.setParameterExceptionHandler(Main::handleParameterException);
     cl.setCaseInsensitiveEnumValuesAllowed(true);
+    // Every command prints through these (never System.out/err), in UTF-8 whatever the platform charset.
+    cl.setOut(new PrintWriter(new OutputStreamWriter(System.out, StandardCharsets.UTF_8), true));
+    cl.setErr(new PrintWriter(new OutputStreamWriter(System.err, StandardCharsets.UTF_8), true));
     return cl;
   }
 

@@ -1,11 +1,9 @@
 package steelyard.cli;
 
 import com.fasterxml.jackson.databind.node.ArrayNode;
-import com.fasterxml.jackson.databind.node.JsonNodeFactory;
 import com.fasterxml.jackson.databind.node.ObjectNode;
-import java.io.PrintStream;
+import java.io.PrintWriter;
 import java.nio.file.Path;
-import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -17,25 +15,21 @@ import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
-import steelyard.eval.Aligner;
 import steelyard.io.AtomicOutput;
-import steelyard.io.FeatureSpec;
 import steelyard.io.HypothesesReader;
 import steelyard.io.InputException;
+import steelyard.io.JsonOutput;
 import steelyard.io.UtteranceHypotheses;
 import steelyard.lattice.ConfusionNetwork;
 import steelyard.lattice.LatticeChoice;
-import steelyard.lattice.LatticeSettings;
-import steelyard.lattice.Lattices;
 import steelyard.lattice.NetworkExport;
-import steelyard.lm.LanguageModel;
 import steelyard.report.OutputPaths;
-import steelyard.rescore.HypothesisScorer;
-import steelyard.rescore.NbestRescorer;
+import steelyard.rescore.RescoreConfig;
 import steelyard.rescore.RescoreMethod;
+import steelyard.rescore.RescoreSession;
 import steelyard.rescore.RescoreWeights;
 import steelyard.rescore.ScoredUtterance;
-import steelyard.rescore.Tokenizer;
+import steelyard.rescore.UtteranceResult;
 import steelyard.rescore.WeightsFile;
 import steelyard.rescore.WeightsSpec;
 import steelyard.text.Normaliser;
@@ -79,7 +73,7 @@ public final class NetworkCommand implements Callable<Integer> {
   Path json;
 
   @Override
-  public Integer call() throws Exception {
+  public Integer call() {
     if (kbest < 0) throw InputException.option("--kbest", "is " + kbest, "0 or a positive number");
     Map<String, Path> outputs = new LinkedHashMap<>();
     outputs.put("--dot", dot);
@@ -87,43 +81,40 @@ public final class NetworkCommand implements Callable<Integer> {
     outputs.put("--json", json);
     OutputPaths.refuseClashes(outputs, Arrays.asList(input.hyps, lm, weightsFile, normalisation.rules));
 
-    List<FeatureSpec> specs = input.featureSpecs();
-    List<String> names = new ArrayList<>();
-    WeightsSpec fileSpec = RescoreSupport.readWeights(weightsFile, specs, names);
-    RescoreWeights weights = fileSpec.overlay(weightOptions.spec(names)).resolve(names);
-    boolean needed = weights.lmWeight() != 0 || weights.oovWeight() != 0 || (kbest > 0 && weights.latticeLmWeight() != 0);
-    LanguageModel model = RescoreSupport.loadModel(lm, needed);
-    Unit unit = RescoreSupport.unit(spec.commandLine().getParseResult().hasMatchedOption("--unit"), normalisation.unit, fileSpec, model);
+    PrintWriter err = spec.commandLine().getErr();
+    PrintWriter out = spec.commandLine().getOut();
+    // Consensus builds the same network as the lattice search; the search (and so the model) is needed only for --kbest.
+    RescoreSession session = RescoreSession.open(RescoreConfig.builder()
+        .features(input.featureSpecs())
+        .weightsFile(weightsFile)
+        .overrides(weightOptions.spec())
+        .modelPath(lm)
+        .normalisation(normalisation.options())
+        .unit(spec.commandLine().getParseResult().hasMatchedOption("--unit") ? normalisation.unit : null)
+        .method(kbest > 0 ? RescoreMethod.LATTICE : RescoreMethod.CONSENSUS)
+        .importOptions(input.importOptions(err))
+        .build());
+    session.warnings().forEach(w -> RescoreSupport.warn(err, w));
+    ScoredUtterance s = session.score(find(session));
+    UtteranceResult r = session.choose(s);
+    ConfusionNetwork net = r.network();
+    List<LatticeChoice> paths = kbest == 0 ? List.of() : session.kBestPaths(r, kbest);
+    Unit unit = session.unit();
 
-    Normaliser scoring = Normaliser.create(normalisation.options());
-    Tokenizer unitTokens = raw -> scoring.tokens(raw, unit);
-    Tokenizer lmTokens = RescoreSupport.lmTokens(model, unit, normalisation.options(), unitTokens);
-    UtteranceHypotheses u = find(RescoreSupport.withFeatures(input.importOptions(), specs));
-    HypothesisScorer scorer = new HypothesisScorer(model, lmTokens, unitTokens, names.size(), 0);
-    NbestRescorer rescorer = new NbestRescorer(scorer, names, weights, RescoreMethod.LATTICE, model, () -> new Aligner()::distance);
-    ScoredUtterance s = scorer.score(u);
-    double[] post = rescorer.posteriors(s, rescorer.weighting().totals(s, new double[s.size()]));
-    List<List<String>> toks = NbestRescorer.tokenLists(s);
-    LatticeSettings settings = weights.latticeSettings();
-    ConfusionNetwork net = Lattices.network(toks, post, settings);
-    List<LatticeChoice> paths = kbest == 0 ? List.of() : Lattices.searchKBest(net, toks, post, model, settings, kbest);
-
-    if (dot != null) AtomicOutput.writeText(dot, w -> NetworkExport.writeDot(net, uttId, w));
-    if (arcs != null) AtomicOutput.writeText(arcs, w -> NetworkExport.writeCsv(net, w));
-    if (kbest > 0 && !OutputPaths.isStdout(json)) printPaths(System.out, paths, unit);
-    if (json != null) {
-      ObjectNode node = summary(s, net, paths, unit, weights);
-      AtomicOutput.writeText(json, w -> RescoreSupport.writeJson(w, node));
-    }
-    System.err.printf(Locale.ROOT, "steelyard network: %s: %d hypotheses, %d entered, %d slots, %d arcs%s%n",
+    if (dot != null) AtomicOutput.writeText(dot, out, w -> NetworkExport.writeDot(net, uttId, w));
+    if (arcs != null) AtomicOutput.writeText(arcs, out, w -> NetworkExport.writeCsv(net, w));
+    if (kbest > 0 && !OutputPaths.isStdout(json)) printPaths(out, paths, unit);
+    if (json != null) JsonOutput.write(json, summary(s, net, paths, unit, session.weights()), out);
+    err.printf(Locale.ROOT, "steelyard network: %s: %d hypotheses, %d entered, %d slots, %d arcs%s%n",
         uttId, s.size(), net.enteredCount(), net.slotCount(), net.arcCount(),
         net.capped() ? " (the hypothesis cap applied)" : "");
+    err.flush();
     return Main.OK;
   }
 
   /** Streams the hypotheses file up to the utterance; its absence is an input error naming --utt. */
-  private UtteranceHypotheses find(steelyard.io.ImportOptions options) {
-    try (HypothesesReader reader = HypothesesReader.open(input.hyps, options)) {
+  private UtteranceHypotheses find(RescoreSession session) {
+    try (HypothesesReader reader = session.open(input.hyps)) {
       while (reader.hasNext()) {
         UtteranceHypotheses u = reader.next();
         if (u.uttId().equals(uttId)) return u;
@@ -132,7 +123,7 @@ public final class NetworkCommand implements Callable<Integer> {
     throw InputException.option("--utt", "utterance '" + uttId + "' is not in " + input.hyps, "an utt_id of the hypotheses file");
   }
 
-  private static void printPaths(PrintStream out, List<LatticeChoice> paths, Unit unit) {
+  private static void printPaths(PrintWriter out, List<LatticeChoice> paths, Unit unit) {
     out.println("rank\tscore\tlog_posterior\tlm_ln_p\ttokens\tnew\ttext");
     for (int r = 0; r < paths.size(); r++) {
       LatticeChoice c = paths.get(r);
@@ -143,10 +134,10 @@ public final class NetworkCommand implements Callable<Integer> {
   }
 
   private ObjectNode summary(ScoredUtterance s, ConfusionNetwork net, List<LatticeChoice> paths, Unit unit,
-      RescoreWeights weights) throws java.io.IOException {
-    ObjectNode node = JsonNodeFactory.instance.objectNode();
+      RescoreWeights weights) {
+    ObjectNode node = JsonOutput.object();
     node.put("utt_id", uttId);
-    node.put("unit", RescoreSupport.label(unit));
+    node.put("unit", unit.label());
     node.put("hypotheses", s.size());
     node.put("entered", net.enteredCount());
     node.put("capped", net.capped());
@@ -164,7 +155,7 @@ public final class NetworkCommand implements Callable<Integer> {
       p.put("tokens", c.tokenCount());
       p.put("new", c.isNewTranscript());
     }
-    node.set("weights", RescoreSupport.parse(WeightsFile.toJson(WeightsSpec.of(weights, unit, null))));
+    node.set("weights", JsonOutput.parse(WeightsFile.toJson(WeightsSpec.of(weights, unit, null))));
     return node;
   }
 

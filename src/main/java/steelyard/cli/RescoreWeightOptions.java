@@ -1,7 +1,6 @@
 package steelyard.cli;
 
 import java.util.LinkedHashMap;
-import java.util.List;
 import java.util.Map;
 import picocli.CommandLine.Option;
 import steelyard.io.InputException;
@@ -46,15 +45,13 @@ public final class RescoreWeightOptions {
       description = "Feature column (one of --features) whose natural-log confidence weighs each hypothesis's vote in consensus/lattice.")
   String voteConfidence;
 
-  /** The options as a partial weights spec; {@code --weight} names must be among {@code featureNames}. */
-  WeightsSpec spec(List<String> featureNames) {
+  /**
+   * The options as a partial weights spec (the upper layer of a {@link steelyard.rescore.RescoreConfig}, which
+   * checks that {@code --weight} and {@code --vote-confidence} name features of the run).
+   */
+  WeightsSpec spec() {
     WeightsSpec s = new WeightsSpec();
-    for (Map.Entry<String, String> e : features.entrySet()) {
-      if (!featureNames.contains(e.getKey()))
-        throw InputException.option("--weight", "unknown weight name '" + e.getKey() + "'",
-            "one of the --features columns: " + String.join(", ", featureNames));
-      s.features.put(e.getKey(), finite("--weight " + e.getKey(), e.getValue()));
-    }
+    for (Map.Entry<String, String> e : features.entrySet()) s.features.put(e.getKey(), finite("--weight " + e.getKey(), e.getValue()));
     for (Map.Entry<String, String> e : systems.entrySet()) {
       double v = finite("--system-weight " + e.getKey(), e.getValue());
       if (!(v > 0)) throw InputException.option("--system-weight", e.getKey() + " is " + v, "a weight > 0");
@@ -71,9 +68,6 @@ public final class RescoreWeightOptions {
     s.mbrMaxHypotheses = positive("--mbr-max-hyps", mbrMaxHyps);
     s.beam = positive("--beam", beam);
     s.latticeMaxHypotheses = positive("--lattice-max-hyps", latticeMaxHyps);
-    if (voteConfidence != null && !featureNames.contains(voteConfidence))
-      throw InputException.option("--vote-confidence", "unknown feature name '" + voteConfidence + "'",
-          "one of the --features columns: " + String.join(", ", featureNames));
     s.voteConfidence = voteConfidence;
     return s;
   }

@@ -1,9 +1,6 @@
 package steelyard.cli;
 
-import java.io.OutputStreamWriter;
-import java.io.PrintStream;
 import java.io.PrintWriter;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -26,7 +23,7 @@ import steelyard.io.ImportOptions;
 import steelyard.io.InputException;
 import steelyard.io.Reference;
 import steelyard.io.ReferencesReader;
-import steelyard.report.JsonOutput;
+import steelyard.io.JsonOutput;
 import steelyard.report.OutputPaths;
 import steelyard.report.ScoreContext;
 import steelyard.report.ScoreReport;
@@ -52,6 +49,7 @@ public final class ScoreCommand implements Callable<Integer> {
   @Mixin HypothesesInput hypotheses;
   @Mixin NormalisationInput normalisation;
   @Mixin RunInput run;
+  @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
   @Option(names = "--refs", required = true, paramLabel = "FILE", description = "References CSV (utt_id,text[,group]; .gz accepted).")
   Path refs;
@@ -94,7 +92,7 @@ public final class ScoreCommand implements Callable<Integer> {
     OutputPaths.refuseClashes(outputs, Arrays.asList(hypotheses.hyps, refs, normalisation.rules));
 
     List<String> warnings = new ArrayList<>();
-    ImportOptions options = collecting(hypotheses.importOptions(), warnings);
+    ImportOptions options = collecting(hypotheses.importOptions(spec.commandLine().getErr()), warnings);
     Normaliser normaliser = Normaliser.create(normalisation.options());
     Unit unit = normalisation.unit;
     LinkedHashMap<String, Reference> refMap = ReferencesReader.readAll(refs, withoutFeatures(options));
@@ -113,16 +111,16 @@ public final class ScoreCommand implements Callable<Integer> {
         normaliser.describe(), normaliser.ruleUsage(), run.seed, resamples, ci,
         hypotheses.skipped, warnings);
 
-    if (csv != null) AtomicOutput.writeText(csv, out -> ScoreReport.csv(score, out, spreadsheetSafe));
-    if (json != null) JsonOutput.write(json, ScoreReport.json(score, context));
-    printReport(OutputPaths.isStdout(csv) ? csv : json, ScoreReport.text(score, context));
+    PrintWriter stdout = spec.commandLine().getOut();
+    if (csv != null) AtomicOutput.writeText(csv, stdout, out -> ScoreReport.csv(score, out, spreadsheetSafe));
+    if (json != null) JsonOutput.write(json, ScoreReport.json(score, context), stdout);
+    printReport(spec, OutputPaths.isStdout(csv) ? csv : json, ScoreReport.text(score, context));
     return Main.OK;
   }
 
-  /** Prints a text report in UTF-8 whatever the platform charset: to stdout, or to stderr when {@code other} is stdout. */
-  static void printReport(Path other, String text) {
-    PrintStream target = OutputPaths.isStdout(other) ? System.err : System.out;
-    PrintWriter w = new PrintWriter(new OutputStreamWriter(target, StandardCharsets.UTF_8));
+  /** Prints a text report to the command's stdout, or to its stderr when {@code other} is stdout. */
+  static void printReport(CommandLine.Model.CommandSpec spec, Path other, String text) {
+    PrintWriter w = OutputPaths.isStdout(other) ? spec.commandLine().getErr() : spec.commandLine().getOut();
     w.print(text);
     w.flush();
   }

@@ -1,26 +1,26 @@
 package steelyard.demo;
 
+import java.io.IOException;
+import java.io.StringWriter;
+import java.io.UncheckedIOException;
 import java.util.Locale;
+import steelyard.io.CsvWriter;
 
-/** RFC 4180 CSV fields and fixed number formatting ({@link Locale#ROOT}) for the generated files. */
+/** CSV records and fixed number formatting ({@link Locale#ROOT}) for the generated files. */
 final class CsvText {
   private CsvText() {}
 
-  /** The field, quoted when it contains a comma, a quote, a line break or leading/trailing whitespace. */
-  static String field(String value) {
-    boolean quote = value.indexOf(',') >= 0 || value.indexOf('"') >= 0 || value.indexOf('\n') >= 0
-        || value.indexOf('\r') >= 0 || !value.equals(value.strip());
-    return quote ? '"' + value.replace("\"", "\"\"") + '"' : value;
-  }
-
-  /** Joins fields into one record line terminated by LF. */
+  /** Fields as one CSV record line terminated by LF, through the project's CSV writer (plain data, RFC 4180). */
   static String row(String... fields) {
-    StringBuilder sb = new StringBuilder();
-    for (int i = 0; i < fields.length; i++) {
-      if (i > 0) sb.append(',');
-      sb.append(field(fields[i]));
+    StringWriter w = new StringWriter();
+    try {
+      CsvWriter csv = CsvWriter.plain(w);
+      csv.row(fields);
+      csv.flush();
+    } catch (IOException e) {
+      throw new UncheckedIOException(e);
     }
-    return sb.append('\n').toString();
+    return w.toString();
   }
 
   static String fixed(double value, int decimals) {

@@ -79,6 +79,28 @@ public final class AtomicOutput {
     });
   }
 
+  /**
+   * As {@link #writeText(Path, WriterBody)}, but {@code -} writes to {@code stdout} (a command's own output
+   * writer, e.g. picocli's {@code getOut()}), which is flushed and left open.
+   */
+  public static void writeText(Path target, Writer stdout, WriterBody body) {
+    if (!isStdout(target)) {
+      writeText(target, body);
+      return;
+    }
+    try {
+      body.write(new FilterWriter(stdout) {
+        @Override
+        public void close() throws IOException {
+          flush();
+        }
+      });
+      stdout.flush();
+    } catch (IOException e) {
+      throw InputException.inFile(target, "cannot write to standard output (" + e + ")", null).withCause(e);
+    }
+  }
+
   /** Writes bytes to {@code target} (or stdout when it is {@code -}) with the same guarantees as {@link #writeText}. */
   public static void writeBytes(Path target, StreamBody body) {
     if (isStdout(target)) {

@@ -1,9 +1,9 @@
 package steelyard.lattice;
 
-import com.opencsv.CSVWriter;
 import java.io.IOException;
 import java.io.Writer;
 import java.util.Locale;
+import steelyard.io.CsvWriter;
 
 /**
  * Writes one utterance's {@link ConfusionNetwork} for inspection. Callers route the writer through
@@ -15,7 +15,7 @@ import java.util.Locale;
  * syntax: backslash and quote get a backslash, {@code & < >} become entities, and every control, format
  * (e.g. right-to-left marks), separator or lone-surrogate character is shown as {@code <U+XXXX>}.
  *
- * <p><b>Arc CSV</b> (RFC 4180 quoting via opencsv, fields quoted only when needed, LF line ends), one row
+ * <p><b>Arc CSV</b> ({@link CsvWriter#plain}: RFC 4180, fields quoted only when needed, LF line ends), one row
  * per arc in slot order, columns: {@code slot} (0-based), {@code arc} (0-based within the slot),
  * {@code token} (the raw token text, exactly; empty for the empty arc), {@code empty} (1 for the empty arc,
  * else 0), {@code posterior} (10 decimals), {@code hypothesis_count}, {@code hypotheses} (input indices,
@@ -58,8 +58,8 @@ public final class NetworkExport {
 
   /** The arc CSV of {@code net} (format in the class comment). */
   public static void writeCsv(ConfusionNetwork net, Writer out) throws IOException {
-    CSVWriter csv = new CSVWriter(out, ',', '"', '"', "\n");
-    csv.writeNext(CSV_HEADER, false);
+    CsvWriter csv = CsvWriter.plain(out);
+    csv.row(CSV_HEADER);
     for (int s = 0; s < net.slotCount(); s++) {
       int best = net.consensusArc(s);
       for (int a = net.arcStart(s); a < net.arcEnd(s); a++) {
@@ -68,7 +68,7 @@ public final class NetworkExport {
           if (hyps.length() > 0) hyps.append(' ');
           hyps.append(h);
         }
-        csv.writeNext(new String[] {
+        csv.row(
           Integer.toString(s),
           Integer.toString(a - net.arcStart(s)),
           net.isEmpty(a) ? "" : net.arcText(a),
@@ -76,12 +76,10 @@ public final class NetworkExport {
           String.format(Locale.ROOT, "%.10f", net.arcPosterior(a)),
           Integer.toString(net.arcHypothesisCount(a)),
           hyps.toString(),
-          a == best ? "1" : "0"
-        }, false);
+          a == best ? "1" : "0");
       }
     }
     csv.flush();
-    if (csv.checkError()) throw new IOException("writing the arc CSV failed");
   }
 
   /** Text safe inside a DOT double-quoted string (rules in the class comment). */

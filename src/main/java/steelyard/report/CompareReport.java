@@ -6,6 +6,7 @@ import java.util.ArrayList;
 import java.util.List;
 import steelyard.eval.CorpusScore;
 import steelyard.eval.PairedComparison;
+import steelyard.io.JsonOutput;
 import steelyard.io.SkippedRow;
 import steelyard.text.Unit;
 

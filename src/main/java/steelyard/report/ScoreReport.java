@@ -12,6 +12,8 @@ import steelyard.eval.GroupScore;
 import steelyard.eval.MissingHypothesisPolicy;
 import steelyard.eval.TokenTally;
 import steelyard.eval.UtteranceScores;
+import steelyard.io.CsvWriter;
+import steelyard.io.JsonOutput;
 import steelyard.io.SkippedRow;
 import steelyard.text.RuleUsage;
 
@@ -131,7 +133,7 @@ public final class ScoreReport {
 
   /** The per-utterance table, one row per reference utterance in reference-file order. */
   public static void csv(CorpusScore s, Writer out, boolean spreadsheetSafe) throws IOException {
-    SpreadsheetCsv csv = new SpreadsheetCsv(out, spreadsheetSafe);
+    CsvWriter csv = new CsvWriter(out, spreadsheetSafe);
     csv.row(CSV_HEADER);
     UtteranceScores t = s.table();
     for (int r = 0; r < t.size(); r++) {

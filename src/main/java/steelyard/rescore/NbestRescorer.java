@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.function.Supplier;
 import steelyard.io.UtteranceHypotheses;
+import steelyard.lattice.ConfusionNetwork;
 import steelyard.lattice.LatticeChoice;
 import steelyard.lattice.LatticeSettings;
 import steelyard.lattice.Lattices;
@@ -63,16 +64,18 @@ public final class NbestRescorer {
     double[] post = posteriors(s, totals);
     switch (method) {
       case NBEST:
-        return result(s, totals, post, LogLinear.best(s, totals), List.of(), null, null);
+        return result(s, totals, post, LogLinear.best(s, totals), List.of(), null, null, null);
       case MBR: {
         MbrChoice m = new MbrChooser(distance.get(), weights.mbrMaxHypotheses()).choose(s.tokenIds(), post, tieOrders(s));
-        return result(s, totals, post, m.chosen(), List.of(), m, null);
+        return result(s, totals, post, m.chosen(), List.of(), m, null, null);
       }
       case CONSENSUS:
       case LATTICE: {
-        LatticeChoice c = network(s, post);
+        List<List<String>> toks = tokenLists(s);
+        ConfusionNetwork net = Lattices.network(toks, post, weights.latticeSettings());
+        LatticeChoice c = network(net, toks, post);
         int chosen = c.sourceHypothesis();
-        return result(s, totals, post, chosen, chosen < 0 ? c.tokens() : List.of(), null, c);
+        return result(s, totals, post, chosen, chosen < 0 ? c.tokens() : List.of(), null, c, net);
       }
       default:
         throw new AssertionError(method);
@@ -90,13 +93,22 @@ public final class NbestRescorer {
     return post;
   }
 
-  /** The confusion-network choice over the kept hypotheses with their (system-mixed) posteriors. */
-  private LatticeChoice network(ScoredUtterance s, double[] post) {
-    List<List<String>> toks = tokenLists(s);
-    LatticeSettings settings = weights.latticeSettings();
+  /** The confusion-network choice in {@code net}, built from the kept hypotheses with their (system-mixed) posteriors. */
+  private LatticeChoice network(ConfusionNetwork net, List<List<String>> toks, double[] post) {
     return method == RescoreMethod.CONSENSUS
-        ? Lattices.consensus(toks, post, settings)
-        : Lattices.search(toks, post, lm, settings);
+        ? Lattices.consensus(net, toks, post)
+        : Lattices.searchKBest(net, toks, post, lm, weights.latticeSettings(), 1).get(0);
+  }
+
+  /**
+   * The {@code k} best paths of the LM search in the network of {@code r} (built for a network method; else
+   * built here from its posteriors), best first.
+   */
+  public List<LatticeChoice> searchKBest(UtteranceResult r, int k) {
+    List<List<String>> toks = tokenLists(r.scores());
+    LatticeSettings settings = weights.latticeSettings();
+    ConfusionNetwork net = r.network() != null ? r.network() : Lattices.network(toks, r.posteriors(), settings);
+    return Lattices.searchKBest(net, toks, r.posteriors(), lm, settings, k);
   }
 
   /** The scoring-unit token lists of the kept hypotheses, as the network methods take them. */
@@ -107,8 +119,8 @@ public final class NbestRescorer {
   }
 
   private UtteranceResult result(ScoredUtterance s, double[] totals, double[] post, int chosen, List<String> tokens,
-      MbrChoice mbr, LatticeChoice lattice) {
-    return new UtteranceResult(s, weighting, method, totals, post, chosen, tokens, mbr, lattice);
+      MbrChoice mbr, LatticeChoice lattice, ConfusionNetwork net) {
+    return new UtteranceResult(s, weighting, method, totals, post, chosen, tokens, mbr, lattice, net);
   }
 
   /** Each present system's weight, aligned with {@code s.systems()}. */

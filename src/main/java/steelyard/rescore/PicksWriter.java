@@ -1,9 +1,9 @@
 package steelyard.rescore;
 
 import java.io.IOException;
-import java.io.Writer;
 import java.util.ArrayList;
 import java.util.List;
+import steelyard.io.CsvWriter;
 import steelyard.io.Hypothesis;
 import steelyard.lattice.LatticeChoice;
 import steelyard.text.Normaliser;
@@ -11,7 +11,8 @@ import steelyard.text.Unit;
 
 /**
  * Writes {@code picks.csv} (one row per utterance: the choice and its score breakdown) and the optional
- * breakdown file (one row per kept hypothesis), both data outputs meant for re-import: raw text exactly.
+ * breakdown file (one row per kept hypothesis), both data outputs meant for re-import: raw text exactly
+ * (write them through {@link CsvWriter#plain}).
  * Columns are documented in the README; {@code feature.NAME} columns follow the selected features.
  */
 public final class PicksWriter {
@@ -23,18 +24,18 @@ public final class PicksWriter {
     this.unit = unit;
   }
 
-  public void picksHeader(Writer out) throws IOException {
+  public void picksHeader(CsvWriter out) throws IOException {
     List<String> h = new ArrayList<>(List.of("utt_id", "system", "rank", "method", "text", "new_transcript", "changed", "capped",
         "total", "posterior"));
     termColumns(h);
     h.addAll(List.of("mbr_expected_errors", "path_score", "path_ln_posterior", "path_lm_ln_prob"));
-    Csv.row(out, h.toArray(new String[0]));
+    out.row(h);
   }
 
-  public void breakdownHeader(Writer out) throws IOException {
+  public void breakdownHeader(CsvWriter out) throws IOException {
     List<String> h = new ArrayList<>(List.of("utt_id", "system", "rank", "text", "chosen", "total", "posterior"));
     termColumns(h);
-    Csv.row(out, h.toArray(new String[0]));
+    out.row(h);
   }
 
   private void termColumns(List<String> h) {
@@ -42,7 +43,7 @@ public final class PicksWriter {
     h.addAll(List.of("lm_term", "oov_term", "length_term", "lm_ln_prob", "oov_tokens", "tokens"));
   }
 
-  public void pick(Writer out, UtteranceResult r) throws IOException {
+  public void pick(CsvWriter out, UtteranceResult r) throws IOException {
     List<String> row = new ArrayList<>(10 + featureNames.size() + 10);
     Hypothesis h = r.chosenHypothesis();
     row.add(r.uttId());
@@ -57,20 +58,20 @@ public final class PicksWriter {
       for (int k = 0; k < featureNames.size() + 8; k++) row.add("");
       row.set(row.size() - 1, Integer.toString(r.newTokens().size()));
     } else {
-      row.add(Csv.number(r.totals()[r.chosen()]));
-      row.add(Csv.number(r.posteriors()[r.chosen()]));
+      row.add(CsvWriter.number(r.totals()[r.chosen()]));
+      row.add(CsvWriter.number(r.posteriors()[r.chosen()]));
       terms(row, r, r.chosen());
     }
-    row.add(r.mbr() == null ? "" : Csv.number(r.mbr().expectedErrors()));
+    row.add(r.mbr() == null ? "" : CsvWriter.number(r.mbr().expectedErrors()));
     LatticeChoice c = r.lattice();
-    row.add(c == null ? "" : Csv.number(c.score()));
-    row.add(c == null ? "" : Csv.number(c.logPosterior()));
-    row.add(c == null ? "" : Csv.number(c.lmLogProb()));
-    Csv.row(out, row.toArray(new String[0]));
+    row.add(c == null ? "" : CsvWriter.number(c.score()));
+    row.add(c == null ? "" : CsvWriter.number(c.logPosterior()));
+    row.add(c == null ? "" : CsvWriter.number(c.lmLogProb()));
+    out.row(row);
   }
 
   /** One row per kept hypothesis of {@code r}, in file order. */
-  public void breakdown(Writer out, UtteranceResult r) throws IOException {
+  public void breakdown(CsvWriter out, UtteranceResult r) throws IOException {
     ScoredUtterance s = r.scores();
     List<String> row = new ArrayList<>(10 + featureNames.size() + 6);
     for (int i = 0; i < s.size(); i++) {
@@ -81,10 +82,10 @@ public final class PicksWriter {
       row.add(Integer.toString(h.rank()));
       row.add(h.text());
       row.add(i == r.chosen() ? "1" : "0");
-      row.add(Csv.number(r.totals()[i]));
-      row.add(Csv.number(r.posteriors()[i]));
+      row.add(CsvWriter.number(r.totals()[i]));
+      row.add(CsvWriter.number(r.posteriors()[i]));
       terms(row, r, i);
-      Csv.row(out, row.toArray(new String[0]));
+      out.row(row);
     }
   }
 
@@ -92,8 +93,8 @@ public final class PicksWriter {
     ScoredUtterance s = r.scores();
     LogLinear w = r.weighting();
     int f = featureNames.size();
-    for (int t = 0; t < f + 3; t++) row.add(Csv.number(w.term(s, i, t)));
-    row.add(Csv.number(s.lmLogProb(i)));
+    for (int t = 0; t < f + 3; t++) row.add(CsvWriter.number(w.term(s, i, t)));
+    row.add(CsvWriter.number(s.lmLogProb(i)));
     row.add(Integer.toString(s.oovCount(i)));
     row.add(Integer.toString(s.tokenCount(i)));
   }

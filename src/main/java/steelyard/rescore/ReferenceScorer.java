@@ -27,8 +27,16 @@ public final class ReferenceScorer {
   }
 
   public UtteranceErrors score(UtteranceResult r, String referenceText) {
+    return score(r, tokens.tokenize(referenceText));
+  }
+
+  /**
+   * Errors of {@code r} against a reference already tokenised in the scoring unit. The lattice oracle reuses
+   * the network that travels with the result ({@link UtteranceResult#network()}); it is built here only for a
+   * result that has none.
+   */
+  public UtteranceErrors score(UtteranceResult r, TokenSequence ref) {
     ScoredUtterance s = r.scores();
-    TokenSequence ref = tokens.tokenize(referenceText);
     int[] refIds = s.idsOf(ref.tokens());
     int[][] ids = s.tokenIds();
     EditCounts best = null;
@@ -45,7 +53,9 @@ public final class ReferenceScorer {
       chosen = per[r.chosen()];
     }
     long lattice = -1;
-    if (network != null) {
+    if (r.network() != null) {
+      lattice = Lattices.oracle(r.network(), ref.tokens()).errors();
+    } else if (network != null) {
       lattice = Lattices.oracleErrors(NbestRescorer.tokenLists(s), r.posteriors(), ref.tokens(), network);
     }
     return new UtteranceErrors(chosen, per[s.firstIndex()], best, lattice);
@@ -53,7 +63,11 @@ public final class ReferenceScorer {
 
   /** Counts for an utterance with no hypotheses: every reference token deleted. */
   public EditCounts missingHypotheses(String referenceText) {
-    TokenSequence ref = tokens.tokenize(referenceText);
+    return allDeleted(tokens.tokenize(referenceText));
+  }
+
+  /** Counts for a tokenised reference with no hypotheses: every token that is not optional deleted. */
+  public static EditCounts allDeleted(TokenSequence ref) {
     long n = 0;
     for (boolean o : ref.optional()) if (!o) n++;
     return new EditCounts(0, 0, n, 0);

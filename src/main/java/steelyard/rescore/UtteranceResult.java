@@ -2,6 +2,7 @@ package steelyard.rescore;
 
 import java.util.List;
 import steelyard.io.Hypothesis;
+import steelyard.lattice.ConfusionNetwork;
 import steelyard.lattice.LatticeChoice;
 
 /**
@@ -10,12 +11,15 @@ import steelyard.lattice.LatticeChoice;
  * what the method chose. Each term's weighted contribution is {@code weighting().term(scores(), i, t)}, so
  * nothing is recomputed to explain a choice.
  *
- * <p>Storage: the scores plus two {@code double[n]} (totals, posteriors).
+ * <p>Storage: the scores plus two {@code double[n]} (totals, posteriors), and for the network methods the
+ * confusion network the choice was made in (kept so that scoring against a reference, e.g. the lattice oracle,
+ * never builds it a second time).
  *
  * @param chosen    kept index of the chosen hypothesis, or −1 when a network method produced a new transcript
  * @param newTokens the chosen tokens when {@code chosen} is −1 (else empty)
  * @param mbr       the MBR details for {@link RescoreMethod#MBR}, else null
  * @param lattice   the network path for {@link RescoreMethod#CONSENSUS} and {@link RescoreMethod#LATTICE}, else null
+ * @param network   the confusion network {@code lattice} was chosen in (built from {@code posteriors}), else null
  */
 public record UtteranceResult(
     ScoredUtterance scores,
@@ -26,7 +30,8 @@ public record UtteranceResult(
     int chosen,
     List<String> newTokens,
     MbrChoice mbr,
-    LatticeChoice lattice) {
+    LatticeChoice lattice,
+    ConfusionNetwork network) {
 
   public UtteranceResult {
     newTokens = List.copyOf(newTokens);

@@ -6,8 +6,6 @@ import com.fasterxml.jackson.core.JsonLocation;
 import com.fasterxml.jackson.core.JsonParser;
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.core.JsonToken;
-import com.fasterxml.jackson.core.util.DefaultIndenter;
-import com.fasterxml.jackson.core.util.DefaultPrettyPrinter;
 import java.io.IOException;
 import java.io.Reader;
 import java.io.StringWriter;
@@ -22,6 +20,7 @@ import java.util.Locale;
 import java.util.Map;
 import steelyard.io.AtomicOutput;
 import steelyard.io.InputException;
+import steelyard.io.JsonOutput;
 import steelyard.text.Unit;
 
 /**
@@ -78,9 +77,14 @@ public final class WeightsFile {
     }
   }
 
-  /** Writes {@code spec} atomically to {@code target} ({@code -} for stdout). */
+  /** Writes {@code spec} atomically to {@code target} ({@code -} for the process's stdout). */
   public static void save(Path target, WeightsSpec spec) {
     AtomicOutput.writeText(target, out -> write(out, spec));
+  }
+
+  /** Writes {@code spec} atomically to {@code target}; {@code -} writes to {@code stdout}. */
+  public static void save(Path target, WeightsSpec spec, java.io.Writer stdout) {
+    AtomicOutput.writeText(target, stdout, out -> write(out, spec));
   }
 
   /** The JSON text of {@code spec}: fixed key order, LF line ends, so equal weights give equal bytes. */
@@ -96,11 +100,8 @@ public final class WeightsFile {
 
   /** Writes the JSON text of {@code spec}; values it does not give are left out (readers then use the defaults). */
   public static void write(Writer out, WeightsSpec s) throws IOException {
-    DefaultPrettyPrinter pp = new DefaultPrettyPrinter()
-        .withObjectIndenter(new DefaultIndenter("  ", "\n"))
-        .withArrayIndenter(new DefaultIndenter("  ", "\n"));
     try (JsonGenerator g = JSON.createGenerator(out)) {
-      g.setPrettyPrinter(pp);
+      g.setPrettyPrinter(JsonOutput.prettyPrinter());
       g.writeStartObject();
       g.writeStringField("format", FORMAT);
       g.writeNumberField("version", VERSION);

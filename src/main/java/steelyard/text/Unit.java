@@ -5,5 +5,10 @@ public enum Unit {
   /** Whitespace-separated words after normalisation (WER). */
   WORD,
   /** User-perceived characters: extended grapheme clusters, {@code \X} (CER). */
-  CHAR
+  CHAR;
+
+  /** The unit's name as the command line, weights files and JSON outputs spell it: {@code word} or {@code char}. */
+  public String label() {
+    return this == WORD ? "word" : "char";
+  }
 }

@@ -41,6 +41,12 @@ class DemoCommandTest {
   }
 
   @Test
+  void printsEachPartsFiguresOnceAndNoRescoreSummary() {
+    assertThat(stdout.toString(StandardCharsets.UTF_8)).containsOnlyOnce("WER chosen").containsOnlyOnce("CER chosen");
+    assertThat(stderr.toString(StandardCharsets.UTF_8)).doesNotContain("steelyard rescore:");
+  }
+
+  @Test
   void everyTestUtteranceGetsOnePick() throws Exception {
     assertThat(Files.readAllLines(out.resolve("voice-test.picks.csv"))).hasSize(301);
     assertThat(summary("voice-test").get("utterances").asInt()).isEqualTo(300);

@@ -26,18 +26,8 @@ class LmTrainCommandTest {
   record Run(int exit, String out, String err) {}
 
   Run run(String... args) {
-    CommandLine cl = Main.commandLine();
-    StringWriter err = new StringWriter();
-    cl.setErr(new PrintWriter(err, true));
-    PrintStream oldOut = System.out;
-    ByteArrayOutputStream out = new ByteArrayOutputStream();
-    System.setOut(new PrintStream(out, true, StandardCharsets.UTF_8));
-    try {
-      int code = cl.execute(args);
-      return new Run(code, out.toString(StandardCharsets.UTF_8), err.toString());
-    } finally {
-      System.setOut(oldOut);
-    }
+    ScoreCommandTest.Result r = ScoreCommandTest.run(args);
+    return new Run(r.code(), r.out(), r.err());
   }
 
   Path corpus() throws Exception {

@@ -19,19 +19,8 @@ final class RescoreFixtures {
   private RescoreFixtures() {}
 
   static RescoreCommandTest.Result run(String... args) {
-    PrintStream oldOut = System.out;
-    PrintStream oldErr = System.err;
-    ByteArrayOutputStream out = new ByteArrayOutputStream();
-    ByteArrayOutputStream err = new ByteArrayOutputStream();
-    try {
-      System.setOut(new PrintStream(out, true, StandardCharsets.UTF_8));
-      System.setErr(new PrintStream(err, true, StandardCharsets.UTF_8));
-      int code = Main.run(args);
-      return new RescoreCommandTest.Result(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
-    } finally {
-      System.setOut(oldOut);
-      System.setErr(oldErr);
-    }
+    ScoreCommandTest.Result r = ScoreCommandTest.run(args);
+    return new RescoreCommandTest.Result(r.code(), r.out(), r.err());
   }
 
   static List<String[]> readCsv(Path file) throws IOException {

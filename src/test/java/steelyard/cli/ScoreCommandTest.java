@@ -24,20 +24,15 @@ class ScoreCommandTest {
   /** Exit code and captured output of one in-process run. */
   record Result(int code, String out, String err) {}
 
+  /** Runs the command line in-process with its own output writers (the commands print only through them). */
   static Result run(String... args) {
-    PrintStream oldOut = System.out;
-    PrintStream oldErr = System.err;
-    ByteArrayOutputStream out = new ByteArrayOutputStream();
-    ByteArrayOutputStream err = new ByteArrayOutputStream();
-    try {
-      System.setOut(new PrintStream(out, true, StandardCharsets.UTF_8));
-      System.setErr(new PrintStream(err, true, StandardCharsets.UTF_8));
-      int code = Main.run(args);
-      return new Result(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
-    } finally {
-      System.setOut(oldOut);
-      System.setErr(oldErr);
-    }
+    picocli.CommandLine cl = Main.commandLine();
+    java.io.StringWriter out = new java.io.StringWriter();
+    java.io.StringWriter err = new java.io.StringWriter();
+    cl.setOut(new java.io.PrintWriter(out, true));
+    cl.setErr(new java.io.PrintWriter(err, true));
+    int code = cl.execute(args);
+    return new Result(code, out.toString(), err.toString());
   }
 
   static Path write(Path dir, String name, String content) throws IOException {

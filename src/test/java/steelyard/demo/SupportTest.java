@@ -16,9 +16,9 @@ class SupportTest {
     // quotes, and a quote inside is escaped by doubling it.
     @Test
     void quotesFieldsAsRfc4180Requires() {
-      assertThat(CsvText.field("Lot 12/04 Pears")).isEqualTo("Lot 12/04 Pears");
-      assertThat(CsvText.field("6 pallets Leeks, 2 bins Kale")).isEqualTo("\"6 pallets Leeks, 2 bins Kale\"");
-      assertThat(CsvText.field("say \"ok\"")).isEqualTo("\"say \"\"ok\"\"\"");
+      assertThat(CsvText.row("Lot 12/04 Pears")).isEqualTo("Lot 12/04 Pears\n");
+      assertThat(CsvText.row("6 pallets Leeks, 2 bins Kale")).isEqualTo("\"6 pallets Leeks, 2 bins Kale\"\n");
+      assertThat(CsvText.row("say \"ok\"")).isEqualTo("\"say \"\"ok\"\"\"\n");
       assertThat(CsvText.row("a", "b,c")).isEqualTo("a,\"b,c\"\n");
     }
 

@@ -1,10 +1,10 @@
 package steelyard.reliability;
 
 
-import java.io.ByteArrayOutputStream;
 import java.io.File;
 import java.io.IOException;
-import java.io.PrintStream;
+import java.io.PrintWriter;
+import java.io.StringWriter;
 import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
@@ -13,15 +13,14 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.concurrent.TimeUnit;
+import picocli.CommandLine;
 import steelyard.cli.Main;
 
 /**
- * Runs the real command line, in-process ({@link Main#run}) with System.out and System.err captured, or in a
+ * Runs the real command line, in-process (with {@code CommandLine.setOut/setErr} capturing its output), or in a
  * child JVM for the few checks that must kill or isolate the process.
  */
 final class Cli {
-  private static final Object LOCK = new Object();
-
   private Cli() {}
 
   /** What a run printed and returned. */
@@ -49,26 +48,15 @@ final class Cli {
     }
   }
 
-  /** Runs {@code args} in-process; output streams are captured for the duration of the run. */
+  /** Runs {@code args} in-process with the command line's own output writers captured (commands print only through them). */
   static Result run(String... args) {
-    synchronized (LOCK) {
-      PrintStream oldOut = System.out;
-      PrintStream oldErr = System.err;
-      ByteArrayOutputStream out = new ByteArrayOutputStream();
-      ByteArrayOutputStream err = new ByteArrayOutputStream();
-      try (PrintStream o = new PrintStream(out, true, StandardCharsets.UTF_8);
-          PrintStream e = new PrintStream(err, true, StandardCharsets.UTF_8)) {
-        System.setOut(o);
-        System.setErr(e);
-        int code = Main.run(args);
-        o.flush();
-        e.flush();
-        return new Result(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
-      } finally {
-        System.setOut(oldOut);
-        System.setErr(oldErr);
-      }
-    }
+    CommandLine cl = Main.commandLine();
+    StringWriter out = new StringWriter();
+    StringWriter err = new StringWriter();
+    cl.setOut(new PrintWriter(out, true));
+    cl.setErr(new PrintWriter(err, true));
+    int code = cl.execute(args);
+    return new Result(code, out.toString(), err.toString());
   }
 
   /** Runs {@code args} and fails the calling test when the command answers as an unbuilt placeholder. */

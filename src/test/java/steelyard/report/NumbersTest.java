@@ -3,6 +3,7 @@ package steelyard.report;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.util.Locale;
+import steelyard.io.JsonOutput;
 import org.junit.jupiter.api.Test;
 
 class NumbersTest {

@@ -5,6 +5,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.StringWriter;
+import steelyard.io.JsonOutput;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.LinkedHashMap;
