@@ -21,6 +21,39 @@ public record Choices(
     RescoreWeights weights, RescoreMethod method, int[] chosen, List<List<String>> newTokens, int[] errors, boolean[] changed,
     CorpusFigures figures) {
 
+  /** The choices with their corpus figures (as the rescore summary counts them; see {@link CorpusFigures}). */
+  static Choices of(Corpus corpus, RescoreWeights w, RescoreMethod method, int[] chosen, List<List<String>> fresh, int[] errors,
+      boolean[] changed) {
+    int n = corpus.size();
+    int scored = 0;
+    int nChanged = 0;
+    int helped = 0;
+    int hurt = 0;
+    int news = 0;
+    long tokens = 0;
+    long e = 0;
+    long first = 0;
+    long oracle = 0;
+    for (int u = 0; u < n; u++) {
+      if (changed[u]) nChanged++;
+      if (chosen[u] < 0) news++;
+      if (!corpus.hasReference(u)) continue;
+      scored++;
+      tokens += corpus.referenceLength(u);
+      e += errors[u];
+      int f = corpus.firstErrors(u);
+      first += f;
+      oracle += corpus.oracleErrors(u);
+      if (errors[u] < f) helped++;
+      else if (errors[u] > f) hurt++;
+    }
+    int orphans = corpus.orphanReferences().size();
+    long lost = corpus.orphanTokens();
+    CorpusFigures figures = new CorpusFigures(n, scored + orphans, tokens + lost, e + lost, first + lost, oracle + lost,
+        nChanged, helped, hurt, news);
+    return new Choices(w, method, chosen, fresh, errors, changed, figures);
+  }
+
   /** The verdict of utterance {@code u} against rank 1. */
   public Verdict verdict(Corpus corpus, int u) {
     if (!changed[u]) return Verdict.SAME;

@@ -68,7 +68,7 @@ public final class Corpus {
   public String uttId(int u) { return scored[u].uttId(); }
   /** The group of rank 1's row, else the reference's; empty when neither has one. */
   public String group(int u) { return groups[u]; }
-  public boolean hasReference(int u) { return references[u] != null; }
+  public boolean hasReference(int u) { return referenceTokens[u] != null; }
   /** The reference row, or null. */
   public Reference reference(int u) { return references[u]; }
   /** Normalised reference tokens in the scoring unit, or null. */
@@ -108,7 +108,7 @@ public final class Corpus {
   }
 
   private boolean anyReference() {
-    for (Reference r : references) if (r != null) return true;
+    for (TokenSequence r : referenceTokens) if (r != null) return true;
     return false;
   }
 }

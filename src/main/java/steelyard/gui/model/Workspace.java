@@ -3,7 +3,6 @@ package steelyard.gui.model;
 import it.unimi.dsi.fastutil.objects.Object2IntOpenHashMap;
 import java.nio.file.Path;
 import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.Collections;
 import java.util.List;
 import java.util.concurrent.atomic.AtomicInteger;
@@ -13,12 +12,13 @@ import steelyard.eval.Alignment;
 import steelyard.lattice.ConfusionNetwork;
 import steelyard.lattice.Lattices;
 import steelyard.lm.LanguageModel;
-import steelyard.rescore.HypothesisScorer;
 import steelyard.rescore.LogLinear;
-import steelyard.rescore.ModelIdentity;
 import steelyard.rescore.NbestRescorer;
+import steelyard.rescore.ReferenceScorer;
 import steelyard.rescore.RescoreMethod;
+import steelyard.rescore.RescoreSession;
 import steelyard.rescore.RescoreWeights;
+import steelyard.rescore.ScoredSet;
 import steelyard.rescore.ScoredUtterance;
 import steelyard.rescore.UtteranceResult;
 import steelyard.rescore.WeightsFile;
@@ -26,32 +26,28 @@ import steelyard.rescore.WeightsSpec;
 import steelyard.text.TokenSequence;
 
 /**
- * The window's one link to the rescoring core. {@link #open} reads the files of an {@link OpenRequest} and
- * scores every hypothesis once ({@link WorkspaceLoader}); afterwards every choice reads the cached terms:
- * {@link #rerank} (N-best: {@link LogLinear} totals and argmax over the kept arrays, no allocation per
- * hypothesis, fast enough for a slider), {@link #choose} (any method, the core's {@link NbestRescorer} per
+ * The window's one link to the rescoring core. {@link #open} builds a {@link RescoreSession} and reads the
+ * files into a {@link ScoredSet} (every hypothesis scored once); afterwards every choice reads the cached
+ * terms: {@link #rerank} (N-best: the session's {@link LogLinear} totals and argmax over the kept arrays, no
+ * allocation per hypothesis, fast enough for a slider), {@link #choose} (any method: the session's choice per
  * utterance on all cores, with progress and cancel) and {@link #explain} (one utterance with every term).
  *
  * <p>Thread safety: immutable after {@link #open}; every method may be called from any thread. The lazily
- * built token-id view of a {@link ScoredUtterance} (used by MBR) is initialised under the utterance's lock
- * before any choice reads it.
+ * built token ids of a {@link ScoredUtterance} (used by MBR) are built under the utterance's lock.
  */
 public final class Workspace {
   private final OpenRequest request;
+  private final RescoreSession session;
+  private final ScoredSet set;
   private final Corpus corpus;
-  private final LanguageModel model;
-  private final RescoreWeights initialWeights;
   private final List<String> warnings;
-  private final HypothesisScorer scorer;
   private final int maxHypotheses;
 
-  Workspace(OpenRequest request, Corpus corpus, LanguageModel model, HypothesisScorer scorer, RescoreWeights initialWeights,
-      List<String> warnings) {
+  Workspace(OpenRequest request, RescoreSession session, ScoredSet set, Corpus corpus, List<String> warnings) {
     this.request = request;
-    this.scorer = scorer;
+    this.session = session;
+    this.set = set;
     this.corpus = corpus;
-    this.model = model;
-    this.initialWeights = initialWeights;
     this.warnings = List.copyOf(warnings);
     int max = 1;
     for (int u = 0; u < corpus.size(); u++) max = Math.max(max, corpus.scored(u).size());
@@ -69,20 +65,24 @@ public final class Workspace {
 
   public OpenRequest request() { return request; }
   public Corpus corpus() { return corpus; }
+  /** The rescoring session the files were opened with. */
+  public RescoreSession session() { return session; }
+  /** The scored utterances and references as the service read them. */
+  public ScoredSet scoredSet() { return set; }
   /** The model, or null when none was given. */
-  public LanguageModel model() { return model; }
+  public LanguageModel model() { return session.model(); }
   /** The weights of the weights file (defaults where it says nothing). */
-  public RescoreWeights initialWeights() { return initialWeights; }
+  public RescoreWeights initialWeights() { return session.weights(); }
   /** Warnings of the import (rank gaps, skipped rows, unit mismatches), in the command line's words. */
   public List<String> warnings() { return warnings; }
 
   /**
    * The N-best choice under {@code w}: each utterance's totals from the cached terms and the best by the
    * core's tie order. Cost: (F + 3) multiply-adds per hypothesis plus one pass per utterance; no scoring, no
-   * alignment (errors were aligned once at load).
+   * alignment (errors were counted once at load).
    */
   public Choices rerank(RescoreWeights w) {
-    LogLinear weighting = LogLinear.of(w, corpus.featureNames());
+    LogLinear weighting = session.withWeights(w, RescoreMethod.NBEST).weighting();
     int n = corpus.size();
     int[] chosen = new int[n];
     int[] errors = new int[n];
@@ -95,41 +95,45 @@ public final class Workspace {
       errors[u] = corpus.errors(u, c);
       changed[u] = !corpus.sameAsFirst(u, c);
     }
-    return choices(w, RescoreMethod.NBEST, chosen, null, errors, changed);
+    return Choices.of(corpus, w, RescoreMethod.NBEST, chosen, null, errors, changed);
   }
 
   /** The choice under {@code w} by {@code method}; N-best goes through {@link #rerank}. Runs on all cores. */
   public Choices choose(RescoreWeights w, RescoreMethod method, TaskProgress progress) {
     if (method == RescoreMethod.NBEST) return rerank(w);
-    NbestRescorer rescorer = rescorer(w, method);
+    RescoreSession tried = session.withWeights(w, method);
     int n = corpus.size();
     int[] chosen = new int[n];
     int[] errors = new int[n];
     boolean[] changed = new boolean[n];
     List<List<String>> fresh = Collections.synchronizedList(new ArrayList<>(Collections.nCopies(n, null)));
     AtomicInteger done = new AtomicInteger();
+    ThreadLocal<Aligner> aligners = ThreadLocal.withInitial(Aligner::new);
     progress.report(0, "choosing by " + method.label());
     IntStream.range(0, n).parallel().forEach(u -> {
       progress.checkCancelled();
-      UtteranceResult r = chooseOne(rescorer, u);
+      UtteranceResult r = chooseOne(tried, u);
       chosen[u] = r.chosen();
       changed[u] = r.changed();
+      TokenSequence ref = corpus.referenceTokens(u);
       if (r.isNewTranscript()) fresh.set(u, r.newTokens());
-      errors[u] = r.isNewTranscript() ? errorsOf(u, r.newTokens()) : corpus.errors(u, r.chosen());
+      errors[u] = !r.isNewTranscript() ? corpus.errors(u, r.chosen())
+          : ref == null ? Corpus.NO_REFERENCE : ReferenceScorer.transcriptErrors(r.newTokens(), ref, aligners.get());
       int k = done.incrementAndGet();
       if ((k & 31) == 0) progress.report((double) k / n, "choosing by " + method.label());
     });
     progress.checkCancelled();
-    return choices(w, method, chosen, new ArrayList<>(fresh), errors, changed);
+    return Choices.of(corpus, w, method, chosen, new ArrayList<>(fresh), errors, changed);
   }
 
   /** The full result of utterance {@code u} under {@code w} and {@code method}: totals, posteriors, every term. */
   public UtteranceResult explain(int u, RescoreWeights w, RescoreMethod method) {
-    return chooseOne(rescorer(w, method), u);
+    return chooseOne(session.withWeights(w, method), u);
   }
 
-  /** The confusion network of {@code r}'s hypotheses with its posteriors, as the network methods build it. */
+  /** The confusion network of {@code r}: its own for the network methods, else one built from its posteriors. */
   public ConfusionNetwork network(UtteranceResult r, RescoreWeights w) {
+    if (r.network() != null) return r.network();
     return Lattices.network(NbestRescorer.tokenLists(r.scores()), r.posteriors(), w.latticeSettings());
   }
 
@@ -146,34 +150,21 @@ public final class Workspace {
 
   /** Writes {@code w} as a weights file (with the unit and, for a model file, its identity). */
   public void saveWeights(Path target, RescoreWeights w) {
-    ModelIdentity identity = request.lm() == null || model == null ? null : ModelIdentity.of(request.lm(), model.order());
-    WeightsFile.save(target, WeightsSpec.of(w, corpus.unit(), identity));
+    WeightsFile.save(target, WeightsSpec.of(w, corpus.unit(), session.modelIdentity()));
   }
 
-  /** The choice of one utterance with the core's rescorer (MBR's token-id view built under the lock first). */
-  private UtteranceResult chooseOne(NbestRescorer rescorer, int u) {
-    ScoredUtterance s = corpus.scored(u);
-    if (rescorer.method() == RescoreMethod.MBR) {
-      synchronized (s) {
-        s.tokenIds();
+  /** The session's choice of one utterance (MBR's token ids built under the utterance's lock first). */
+  private UtteranceResult chooseOne(RescoreSession s, int u) {
+    ScoredUtterance scored = corpus.scored(u);
+    if (s.method() == RescoreMethod.MBR) {
+      synchronized (scored) {
+        scored.tokenIds();
       }
     }
-    return rescorer.choose(s);
+    return s.choose(scored);
   }
 
-  private NbestRescorer rescorer(RescoreWeights w, RescoreMethod method) {
-    return new NbestRescorer(scorer, corpus.featureNames(), w, method, model, () -> new Aligner()::distance);
-  }
-
-  /** Errors of a new transcript against utterance {@code u}'s reference (as the rescore summary counts them). */
-  private int errorsOf(int u, List<String> tokens) {
-    TokenSequence ref = corpus.referenceTokens(u);
-    if (ref == null) return Corpus.NO_REFERENCE;
-    Object2IntOpenHashMap<String> ids = new Object2IntOpenHashMap<>();
-    return (int) new Aligner().count(ids(ref.tokens(), ids), ref.optional(), ids(tokens, ids), new boolean[tokens.size()]).errors();
-  }
-
-  static int[] ids(List<String> tokens, Object2IntOpenHashMap<String> ids) {
+  private static int[] ids(List<String> tokens, Object2IntOpenHashMap<String> ids) {
     int[] out = new int[tokens.size()];
     for (int k = 0; k < out.length; k++) {
       String t = tokens.get(k);
@@ -187,40 +178,8 @@ public final class Workspace {
     return out;
   }
 
-  private Choices choices(RescoreWeights w, RescoreMethod method, int[] chosen, List<List<String>> fresh, int[] errors,
-      boolean[] changed) {
-    int n = corpus.size();
-    int scored = 0;
-    int nChanged = 0;
-    int helped = 0;
-    int hurt = 0;
-    int news = 0;
-    long tokens = 0;
-    long e = 0;
-    long first = 0;
-    long oracle = 0;
-    for (int u = 0; u < n; u++) {
-      if (changed[u]) nChanged++;
-      if (chosen[u] < 0) news++;
-      if (!corpus.hasReference(u)) continue;
-      scored++;
-      tokens += corpus.referenceLength(u);
-      e += errors[u];
-      int f = corpus.firstErrors(u);
-      first += f;
-      oracle += corpus.oracleErrors(u);
-      if (errors[u] < f) helped++;
-      else if (errors[u] > f) hurt++;
-    }
-    int orphans = corpus.orphanReferences().size();
-    long lost = corpus.orphanTokens();
-    CorpusFigures figures = new CorpusFigures(n, scored + orphans, tokens + lost, e + lost, first + lost, oracle + lost,
-        nChanged, helped, hurt, news);
-    return new Choices(w, method, chosen, fresh, errors, changed, figures);
-  }
-
   @Override
   public String toString() {
-    return "Workspace[" + request.hyps() + ", " + corpus.size() + " utterances, " + Arrays.asList(corpus.featureNames()) + "]";
+    return "Workspace[" + request.hyps() + ", " + corpus.size() + " utterances, " + corpus.featureNames() + "]";
   }
 }
