@@ -1,0 +1,107 @@
+package steelyard.tune;
+
+import java.util.EnumSet;
+import java.util.Map;
+import java.util.Set;
+import java.util.TreeMap;
+import steelyard.rescore.RescoreMethod;
+
+/**
+ * How a tuning run searches. Immutable; {@link #defaults()} and the {@code with…} methods make new instances.
+ *
+ * @param methods           methods to tune (empty: all four, keeping the one with the lowest cross-validated error)
+ * @param tune              names of the weights that move ({@link WeightNames}); null: the default set, i.e. every
+ *                          weight that can change a pick except the first feature's (it fixes the scale of the
+ *                          N-best total, which is otherwise free)
+ * @param ranges            allowed ranges by weight name, overriding {@link WeightNames#defaultRange}
+ * @param folds             cross-validation folds over utterances (0 or 1: none); default 5
+ * @param seed              seeds fold assignment, random directions and restarts
+ * @param threads           worker threads (≥ 1); results are the same for any count
+ * @param restarts          random restarts of the N-best and path-pool searches, besides the start point
+ * @param randomDirections  random directions tried after each pass of coordinate ascent that found nothing
+ * @param maxPasses         cap on passes of one coordinate-ascent run
+ * @param kBest             paths per utterance added to the lattice pools by each search
+ * @param maxPoolIterations cap on search-and-tune rounds of the lattice pools per posterior scale
+ * @param surface           whether to compute the error surface of the chosen method
+ */
+public record TuneSettings(
+    Set<RescoreMethod> methods,
+    Set<String> tune,
+    Map<String, WeightRange> ranges,
+    int folds,
+    long seed,
+    int threads,
+    int restarts,
+    int randomDirections,
+    int maxPasses,
+    int kBest,
+    int maxPoolIterations,
+    boolean surface) {
+
+  public static final int DEFAULT_FOLDS = 5;
+  public static final long DEFAULT_SEED = 20261202L;
+
+  public TuneSettings {
+    methods = methods.isEmpty() ? EnumSet.allOf(RescoreMethod.class) : EnumSet.copyOf(methods);
+    tune = tune == null ? null : Set.copyOf(tune);
+    ranges = java.util.Collections.unmodifiableMap(new TreeMap<>(ranges));
+    if (folds < 0 || threads < 1 || restarts < 0 || randomDirections < 0 || maxPasses < 1 || kBest < 1 || maxPoolIterations < 1)
+      throw new IllegalArgumentException("folds, restarts, random directions >= 0; threads, passes, k-best, pool iterations >= 1");
+  }
+
+  /** All methods, default weights, 5 folds, 1 thread, 5 restarts, 3 random directions, 20-best pools. */
+  public static TuneSettings defaults() {
+    return new TuneSettings(Set.of(), null, Map.of(), DEFAULT_FOLDS, DEFAULT_SEED, 1, 5, 3, 30, 20, 8, true);
+  }
+
+  public TuneSettings withMethods(Set<RescoreMethod> m) {
+    return new TuneSettings(m, tune, ranges, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, surface);
+  }
+
+  public TuneSettings withTune(Set<String> t) {
+    return new TuneSettings(methods, t, ranges, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, surface);
+  }
+
+  public TuneSettings withRanges(Map<String, WeightRange> r) {
+    return new TuneSettings(methods, tune, r, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, surface);
+  }
+
+  public TuneSettings withFolds(int f) {
+    return new TuneSettings(methods, tune, ranges, f, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, surface);
+  }
+
+  public TuneSettings withSeed(long s) {
+    return new TuneSettings(methods, tune, ranges, folds, s, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, surface);
+  }
+
+  public TuneSettings withThreads(int t) {
+    return new TuneSettings(methods, tune, ranges, folds, seed, t, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, surface);
+  }
+
+  public TuneSettings withSearch(int restarts, int randomDirections, int maxPasses) {
+    return new TuneSettings(methods, tune, ranges, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, surface);
+  }
+
+  public TuneSettings withPools(int kBest, int maxPoolIterations) {
+    return new TuneSettings(methods, tune, ranges, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, surface);
+  }
+
+  public TuneSettings withSurface(boolean s) {
+    return new TuneSettings(methods, tune, ranges, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, s);
+  }
+
+  /** The allowed range of {@code name}: the override when given, else the default. */
+  public WeightRange range(String name) {
+    WeightRange r = ranges.get(name);
+    return r != null ? r : WeightNames.defaultRange(name);
+  }
+
+  /** Whether {@code name} moves: listed in {@link #tune}, or (when that is null) {@code byDefault}. */
+  boolean moves(String name, boolean byDefault) {
+    return tune == null ? byDefault : tune.contains(name);
+  }
+
+  LinearTuner.Effort effort() {
+    return new LinearTuner.Effort(restarts, randomDirections, maxPasses);
+  }
+}
