@@ -15,8 +15,6 @@ import steelyard.rescore.RescoreWeights;
  * EDT only.
  */
 final class ChartRefresher {
-  /** Points of the sweep along λ. */
-  static final int SWEEP_POINTS = 81;
   /** Points along each axis of the surface. */
   static final int SURFACE_POINTS = 33;
 
@@ -52,12 +50,14 @@ final class ChartRefresher {
       return;
     }
     double top = Math.max(40, Math.ceil(2 * w.lmWeight() / 10) * 10);
-    double[] lambdas = Sweeps.grid(0, top, SWEEP_POINTS);
     double[] surfLambdas = Sweeps.grid(0, top, SURFACE_POINTS);
     double[] mus = Sweeps.grid(-16, 16, SURFACE_POINTS);
     window.tasks.submit("charts", "Computing the charts", p -> {
-      Sweeps.LambdaSweep s = Sweeps.lambda(ws, w, lambdas, new Share(p, 0, 0.2));
-      Sweeps.Surface f = Sweeps.surface(ws, w, surfLambdas, mus, new Share(p, 0.2, 1));
+      p.report(0.05, "exact error along λ");
+      Sweeps.LambdaSweep s = Sweeps.lambda(ws, w, 0, top);
+      p.checkCancelled();
+      p.report(0.3, "error over λ × μ");
+      Sweeps.Surface f = Sweeps.surface(ws, w, surfLambdas, mus);
       return new Object[] {s, f};
     }, (o, v, e) -> {
       if (o == Tasks.Outcome.FAILED) ErrorDialogs.show(window, "Cannot compute the charts", e);
@@ -74,19 +74,9 @@ final class ChartRefresher {
   private void draw(Workspace ws, RescoreWeights w) {
     Sweeps.LambdaSweep s = new Sweeps.LambdaSweep(sweep.lambdas(), sweep.errorRate(), sweep.helped(), sweep.hurt(), sweep.firstRate(),
         sweep.oracleRate(), w.lmWeight());
-    String how = String.format(Locale.ROOT, "N-best re-choices at %d values of λ, the other weights as set.", sweep.lambdas().length);
+    String how = String.format(Locale.ROOT, "Exact N-best error along λ (%d steps, the tuner's line search), other weights as set.",
+        Math.max(1, sweep.lambdas().length - 1));
     window.charts.showSweep(s, ws.corpus().unit(), how);
     window.charts.showSurface(surface, ws.corpus().unit(), w.lmWeight(), w.lengthWeight());
-  }
-
-  /** Maps a sub-task's progress 0 … 1 onto [from, to] of the whole. */
-  private record Share(steelyard.gui.model.TaskProgress whole, double from, double to) implements steelyard.gui.model.TaskProgress {
-    @Override public void report(double fraction, String note) {
-      whole.report(Double.isNaN(fraction) ? fraction : from + (to - from) * fraction, note);
-    }
-
-    @Override public boolean isCancelled() {
-      return whole.isCancelled();
-    }
   }
 }

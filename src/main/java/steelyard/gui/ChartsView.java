@@ -50,7 +50,7 @@ final class ChartsView extends JPanel {
     double[][] byMu = new double[s.mus().length][s.lambdas().length];
     for (int i = 0; i < s.lambdas().length; i++) for (int j = 0; j < s.mus().length; j++) byMu[j][i] = 100 * s.errorRate()[i][j];
     surface.chart(Charts.errorSurface("LM weight λ", "length weight μ", rate(unit) + " (%)", s.lambdas(), s.mus(), byMu, lambda, mu),
-        String.format(Locale.ROOT, "Lowest cell: %.2f %% at λ = %s, μ = %s (N-best re-choices; light is low).",
+        String.format(Locale.ROOT, "Lowest cell: %.2f %% at λ = %s, μ = %s (exact N-best errors; light is low).",
             100 * s.errorRate()[s.best()[0]][s.best()[1]], trim(s.lambdas()[s.best()[0]]), trim(s.mus()[s.best()[1]])));
   }
 

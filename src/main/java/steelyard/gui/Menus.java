@@ -23,8 +23,8 @@ import steelyard.rescore.RescoreMethod;
  * audit, the HTML report) are present but disabled, and say why. EDT only.
  */
 final class Menus {
-  /** Why tuning, the audit and the report are greyed. */
-  static final String NOT_YET = "Not available in this build: it needs the tuning and audit services.";
+  /** Why the audit and the report are greyed. */
+  static final String NOT_YET = "Not available in this build: it needs the audit service.";
   private static final int CTRL = InputEvent.CTRL_DOWN_MASK;
 
   private final SteelyardWindow w;
@@ -35,10 +35,11 @@ final class Menus {
 
   Menus(SteelyardWindow w) {
     this.w = w;
-    tune = action("Tune weights…", KeyEvent.VK_T, key(KeyEvent.VK_T, CTRL), NOT_YET, e -> {});
+    tune = action("Tune weights…", KeyEvent.VK_T, key(KeyEvent.VK_T, CTRL),
+        "Let the tuner find the weights with the fewest errors on these utterances (needs references).", e -> TuneAction.run(w));
     audit = action("Overrule audit", KeyEvent.VK_A, key(KeyEvent.VK_3, CTRL), NOT_YET, e -> {});
     report = action("Export HTML report…", KeyEvent.VK_E, key(KeyEvent.VK_E, CTRL), NOT_YET, e -> {});
-    for (Action a : List.of(tune, audit, report)) a.setEnabled(false);
+    for (Action a : List.of(audit, report)) a.setEnabled(false);
     w.weights.tune.setAction(tune);
     w.weights.tune.setText("Tune…");
   }

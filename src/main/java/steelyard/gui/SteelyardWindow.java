@@ -48,6 +48,8 @@ public final class SteelyardWindow extends JFrame {
   private final Menus menus;
   private Workspace workspace;
   private WeightSettings settings;
+  /** The weights the sliders do not set (features, ω, system weights…): the file's, or the tuner's. */
+  private RescoreWeights base;
   private Choices choices;
   private int open = -1;
   private long firstPaintNanos;
@@ -137,13 +139,14 @@ public final class SteelyardWindow extends JFrame {
 
   /** The full weights in effect. */
   RescoreWeights currentWeights() {
-    return settings.apply(workspace.initialWeights());
+    return settings.apply(base);
   }
 
   void install(Workspace ws) {
     workspace = ws;
-    settings = WeightSettings.of(ws.initialWeights(), ws.request().methodOrDefault());
-    weights.show(settings, ws.initialWeights());
+    base = ws.initialWeights();
+    settings = WeightSettings.of(base, ws.request().methodOrDefault());
+    weights.show(settings, base);
     setTitle("Steelyard — " + ws.request().hyps().getFileName());
     open = -1;
     choices = null;
@@ -154,8 +157,18 @@ public final class SteelyardWindow extends JFrame {
 
   void resetWeights() {
     if (workspace == null) return;
-    settings = WeightSettings.of(workspace.initialWeights(), settings.method());
-    weights.show(settings, workspace.initialWeights());
+    base = workspace.initialWeights();
+    settings = WeightSettings.of(base, settings.method());
+    weights.show(settings, base);
+    rechoose(false);
+  }
+
+  /** Moves every weight (and the method) to a tuning result and re-chooses. */
+  void applyTuned(RescoreWeights tuned, RescoreMethod method) {
+    if (workspace == null) return;
+    base = tuned;
+    settings = WeightSettings.of(tuned, method);
+    weights.show(settings, base);
     rechoose(false);
   }
 
@@ -206,7 +219,11 @@ public final class SteelyardWindow extends JFrame {
     chooser.setFileFilter(new FileNameExtensionFilter("Weights files (JSON)", "json"));
     chooser.setSelectedFile(new java.io.File("weights.json"));
     if (chooser.showSaveDialog(this) != JFileChooser.APPROVE_OPTION) return;
-    Path target = chooser.getSelectedFile().toPath();
+    saveWeights(chooser.getSelectedFile().toPath());
+  }
+
+  /** Writes the weights in effect to {@code target}; a failure is shown in a dialog. */
+  void saveWeights(Path target) {
     try {
       workspace.saveWeights(target, currentWeights());
       status.flash("Saved the weights to " + target);

@@ -107,6 +107,7 @@ public final class WindowScenario {
     record("consensus");
     shot("network", window);
     onEdt(() -> { window.detail.lower.setSelectedIndex(0); return null; });
+    tune(badFile.resolveSibling("tuned.weights.json"));
     menus();
     importDialog(badFile);
     failedOpen(badFile);
@@ -152,6 +153,29 @@ public final class WindowScenario {
       out.setProperty(prefix + ".alignment", window.detail.pickStrip().asText());
       return null;
     });
+  }
+
+  /** Tunes N-best without folds, closes the result dialog, records the band and saves the weights in effect. */
+  private void tune(Path saved) throws Exception {
+    onEdt(() -> {
+      window.weights.method(RescoreMethod.NBEST);
+      TuneAction.start(window, java.util.EnumSet.of(RescoreMethod.NBEST), 0);
+      return null;
+    });
+    waitUntil("the tuner's result shows", () -> dialogTitled("Tuned") != null);
+    JDialog d = onEdt(() -> dialogTitled("Tuned"));
+    shot("tune", d);
+    onEdt(() -> { d.dispose(); return null; });
+    waitUntil("the tuned choice is shown", () -> !window.tasks.busy());
+    record("tuned");
+    out.setProperty("tuned.lambda", Double.toString(onEdt(() -> window.settings().lmWeight())));
+    onEdt(() -> { window.saveWeights(saved); return null; });
+    out.setProperty("tuned.weights", saved.toString());
+  }
+
+  private static JDialog dialogTitled(String title) {
+    for (Window w : Window.getWindows()) if (w instanceof JDialog d && d.isShowing() && title.equals(d.getTitle())) return d;
+    return null;
   }
 
   private void menus() throws Exception {

@@ -84,13 +84,19 @@ class WindowTest {
     assertThat(r.getProperty("consensus.error")).isEqualTo("WER " + percent(consensus.get("error_rate").asDouble()));
     assertThat(r.getProperty("consensus.counts")).startsWith("changed " + consensus.get("changed").asInt() + " ");
 
+    Path tuned = Path.of(r.getProperty("tuned.weights"));
+    JsonNode afterTuning = summary(run(tuned));
+    assertThat(r.getProperty("tuned.error")).isEqualTo("WER " + percent(afterTuning.get("error_rate").asDouble()));
+    assertThat(afterTuning.get("error_rate").asDouble()).as("tuning never makes the dev error worse")
+        .isLessThanOrEqualTo(after.get("error_rate").asDouble());
+
     assertThat(r.getProperty("import.problems")).isEqualTo(badMessage);
     assertThat(r.getProperty("error.message")).isEqualTo(badMessage);
     assertThat(r.getProperty("error.keptData")).isEqualTo("true");
     assertThat(r.getProperty("menus.withoutMnemonic")).isEmpty();
     assertThat(r.getProperty("prefs.recent")).endsWith("voice-dev.nbest.csv");
     assertThat(r.getProperty("prefs.hasBounds")).isEqualTo("true");
-    for (String view : List.of("utterance", "network", "charts", "import", "error")) {
+    for (String view : List.of("utterance", "network", "charts", "tune", "import", "error")) {
       Path png = SHOTS.resolve(view + ".png");
       assertThat(ImageIO.read(png.toFile()).getWidth()).as(view).isGreaterThan(300);
     }
@@ -153,6 +159,17 @@ class WindowTest {
 
   private static JsonNode summary(Path run) throws IOException {
     return new com.fasterxml.jackson.databind.ObjectMapper().readTree(run.resolve("summary.json").toFile());
+  }
+
+  /** The command line's N-best rescore of the demo dev set with a weights file alone. */
+  private static Path run(Path weights) throws IOException {
+    Path out = Files.createDirectories(dir.resolve("rescore-tuned"));
+    Path data = ROOT.resolve("sample-hypotheses");
+    int code = Main.run("rescore", "--hyps", data.resolve("voice-dev.nbest.csv").toString(), "--refs", data.resolve("voice-dev.refs.csv").toString(),
+        "--rules", data.resolve("voice.rules").toString(), "--lm", ROOT.resolve("models/voice-3gram.arpa.gz").toString(),
+        "--weights", weights.toString(), "--out", out.resolve("picks.csv").toString(), "--json", out.resolve("summary.json").toString());
+    assertThat(code).isZero();
+    return out;
   }
 
   /** The command line's rescore of the demo dev set at λ with {@code method} and α; cached per arguments. */

@@ -5,11 +5,15 @@ import java.util.List;
 import java.util.Map;
 import java.util.TreeMap;
 import steelyard.rescore.RescoreWeights;
+import steelyard.tune.ErrorSurface;
+import steelyard.tune.Sweep;
+import steelyard.tune.WeightNames;
+import steelyard.tune.WeightSweep;
 
 /**
- * The series behind the window's charts, computed by re-choosing (N-best) over the cached terms at a grid
- * of weights: corpus error and helped/hurt counts along λ, the error over a λ × μ grid, and the error per
- * group under the current weights. Every point is one {@link Workspace#rerank}.
+ * The series behind the window's charts: the exact corpus error and helped/hurt counts along λ and the error
+ * over a λ × μ grid, both from the tuner's exact line search ({@link WeightSweep}, N-best), and the error per
+ * group under the current choices.
  */
 public final class Sweeps {
   private Sweeps() {}
@@ -17,10 +21,10 @@ public final class Sweeps {
   /**
    * Error and helped/hurt counts along λ (other weights as in {@code base}).
    *
-   * @param lambdas   the λ values, ascending
-   * @param errorRate corpus error rate of the choice at each λ
-   * @param helped    utterances helped at each λ
-   * @param hurt      utterances hurt at each λ
+   * @param lambdas   where each step starts, ascending (the last point closes the range)
+   * @param errorRate corpus error rate of the choice from each λ to the next
+   * @param helped    utterances helped from each λ to the next
+   * @param hurt      utterances hurt from each λ to the next
    * @param firstRate rank 1's error rate (a level)
    * @param oracleRate the N-best oracle's error rate (a level)
    * @param current   the λ in effect
@@ -45,34 +49,50 @@ public final class Sweeps {
     return g;
   }
 
-  public static LambdaSweep lambda(Workspace w, RescoreWeights base, double[] lambdas, TaskProgress progress) {
-    double[] err = new double[lambdas.length];
-    int[] helped = new int[lambdas.length];
-    int[] hurt = new int[lambdas.length];
-    CorpusFigures f = null;
-    for (int i = 0; i < lambdas.length; i++) {
-      progress.checkCancelled();
-      f = w.rerank(with(base, lambdas[i], base.lengthWeight())).figures();
-      err[i] = f.errorRate();
-      helped[i] = f.helped();
-      hurt[i] = f.hurt();
-      progress.report((i + 1.0) / lambdas.length, "error along λ");
+  /**
+   * The exact error and helped/hurt counts along λ over [low, high] (other weights as in {@code at}), from the
+   * tuner's sweep ({@link WeightSweep#nbest}: one exact line search). Series points are the interval starts
+   * plus a closing point at {@code high}; references without hypotheses count as all deletions, as in the
+   * corpus figures.
+   */
+  public static LambdaSweep lambda(Workspace w, RescoreWeights at, double low, double high) {
+    Corpus c = w.corpus();
+    Sweep s = WeightSweep.nbest(w.tuneInput(at), at, WeightNames.LM, low, high, threads());
+    long lost = c.orphanTokens();
+    long n = s.referenceTokens() + lost;
+    int m = s.intervals();
+    double[] x = new double[m + 1];
+    double[] rate = new double[m + 1];
+    int[] helped = new int[m + 1];
+    int[] hurt = new int[m + 1];
+    int k = 0;
+    for (int j = 0; j <= m; j++) {
+      double xj = j < m ? s.intervalLow(j) : high;
+      int src = Math.min(j, m - 1);
+      if (k > 0 && !(xj > x[k - 1])) k--;
+      x[k] = xj;
+      rate[k] = rate(s.errors()[src] + lost, n);
+      helped[k] = s.helped()[src];
+      hurt[k] = s.hurt()[src];
+      k++;
     }
-    double first = f == null ? Double.NaN : f.firstErrorRate();
-    double oracle = f == null ? Double.NaN : f.oracleErrorRate();
-    return new LambdaSweep(lambdas.clone(), err, helped, hurt, first, oracle, base.lmWeight());
+    long oracle = lost;
+    for (int u = 0; u < c.size(); u++) if (c.hasReference(u)) oracle += c.oracleErrors(u);
+    return new LambdaSweep(java.util.Arrays.copyOf(x, k), java.util.Arrays.copyOf(rate, k), java.util.Arrays.copyOf(helped, k),
+        java.util.Arrays.copyOf(hurt, k), rate(s.firstErrors() + lost, n), rate(oracle, n), at.lmWeight());
   }
 
-  public static Surface surface(Workspace w, RescoreWeights base, double[] lambdas, double[] mus, TaskProgress progress) {
+  /** The error over λ × μ (other weights as in {@code at}), one exact line search along λ per μ ({@link WeightSweep#nbestSurface}). */
+  public static Surface surface(Workspace w, RescoreWeights at, double[] lambdas, double[] mus) {
+    ErrorSurface e = WeightSweep.nbestSurface(w.tuneInput(at), at, WeightNames.LENGTH, mus, WeightNames.LM, lambdas, threads());
+    long lost = w.corpus().orphanTokens();
     double[][] err = new double[lambdas.length][mus.length];
     int[] best = {0, 0};
     for (int i = 0; i < lambdas.length; i++) {
       for (int j = 0; j < mus.length; j++) {
-        progress.checkCancelled();
-        err[i][j] = w.rerank(with(base, lambdas[i], mus[j])).figures().errorRate();
+        err[i][j] = rate(e.errors()[j][i] + lost, e.referenceTokens() + lost);
         if (err[i][j] < err[best[0]][best[1]]) best = new int[] {i, j};
       }
-      progress.report((i + 1.0) / lambdas.length, "error over λ × μ");
     }
     return new Surface(lambdas.clone(), mus.clone(), err, best);
   }
@@ -100,8 +120,7 @@ public final class Sweeps {
     return n == 0 ? Double.NaN : (double) errors / n;
   }
 
-  private static RescoreWeights with(RescoreWeights b, double lambda, double mu) {
-    return new RescoreWeights(b.features(), lambda, b.oovWeight(), mu, b.posteriorScale(), b.systemWeights(), b.mbrMaxHypotheses(),
-        b.latticeLmWeight(), b.latticeLengthWeight(), b.beam(), b.latticeMaxHypotheses(), b.voteConfidence());
+  private static int threads() {
+    return Runtime.getRuntime().availableProcessors();
   }
 }

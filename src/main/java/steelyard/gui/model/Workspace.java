@@ -24,6 +24,13 @@ import steelyard.rescore.UtteranceResult;
 import steelyard.rescore.WeightsFile;
 import steelyard.rescore.WeightsSpec;
 import steelyard.text.TokenSequence;
+import steelyard.io.InputException;
+import steelyard.tune.DevUtterance;
+import steelyard.tune.TuneInput;
+import steelyard.tune.TuneResult;
+import steelyard.tune.TuneSettings;
+import steelyard.tune.Tuner;
+import java.util.Set;
 
 /**
  * The window's one link to the rescoring core. {@link #open} builds a {@link RescoreSession} and reads the
@@ -42,6 +49,7 @@ public final class Workspace {
   private final Corpus corpus;
   private final List<String> warnings;
   private final int maxHypotheses;
+  private volatile List<DevUtterance> devUtterances;
 
   Workspace(OpenRequest request, RescoreSession session, ScoredSet set, Corpus corpus, List<String> warnings) {
     this.request = request;
@@ -146,6 +154,37 @@ public final class Workspace {
     if (ref == null) return null;
     Object2IntOpenHashMap<String> ids = new Object2IntOpenHashMap<>();
     return new Aligner().alignment(ids(ref.tokens(), ids), ref.optional(), ids(tokens, ids), optional);
+  }
+
+  /**
+   * The utterances with a reference as the tuner takes them, starting from {@code start}. The tuner builds
+   * the utterances' token ids from its threads; they are built here first, under each utterance's lock, so
+   * that a choice on another thread only reads them.
+   */
+  public TuneInput tuneInput(RescoreWeights start) {
+    List<DevUtterance> dev = devUtterances;
+    if (dev == null) {
+      List<DevUtterance> d = new ArrayList<>();
+      for (ScoredSet.Entry e : set.utterances()) {
+        synchronized (e.scores()) {
+          e.scores().tokenIds();
+        }
+        if (e.reference() != null) d.add(new DevUtterance(e.scores(), e.reference(), e.group()));
+      }
+      devUtterances = dev = List.copyOf(d);
+    }
+    if (dev.isEmpty()) throw InputException.option("tune", "no utterance has a reference", "a references file (File ▸ Open)");
+    return TuneInput.of(dev, corpus.featureNames(), model(), start);
+  }
+
+  /**
+   * Tunes the weights on this corpus from {@code start} ({@link Tuner}): the given methods (empty: all four),
+   * {@code folds}-fold cross-validation (0: none), on all cores; the progress and cancel of {@code progress}.
+   */
+  public TuneResult tune(RescoreWeights start, Set<RescoreMethod> methods, int folds, TaskProgress progress) {
+    TuneSettings settings = TuneSettings.defaults().withMethods(methods).withFolds(folds).withSurface(false)
+        .withThreads(Runtime.getRuntime().availableProcessors());
+    return Tuner.tune(tuneInput(start), settings, progress::report, progress::isCancelled);
   }
 
   /** Writes {@code w} as a weights file (with the unit and, for a model file, its identity). */

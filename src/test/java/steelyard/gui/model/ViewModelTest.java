@@ -135,12 +135,12 @@ class ViewModelTest {
   @Nested
   class Charts {
     @Test
-    void errorAndHelpedAlongLambdaStepAtTheFlipWeight() {
-      double[] grid = {0, 0.1, 0.2, 0.3, 1};
-      Sweeps.LambdaSweep s = Sweeps.lambda(w, TinyCorpus.at(w, 0.2, 0), grid, TaskProgress.NONE);
-      assertThat(s.errorRate()).containsExactly(1 / 7.0, 1 / 7.0, 1 / 7.0, 2 / 7.0, 2 / 7.0);
-      assertThat(s.helped()).containsExactly(1, 1, 1, 0, 0);
-      assertThat(s.hurt()).containsExactly(0, 0, 0, 0, 0);
+    void errorAndHelpedAlongLambdaStepExactlyAtTheFlipWeight() {
+      Sweeps.LambdaSweep s = Sweeps.lambda(w, TinyCorpus.at(w, 0.2, 0), 0, 1);
+      assertThat(s.lambdas()).containsExactly(new double[] {0, TinyCorpus.FLIP, 1}, within(1e-9));
+      assertThat(s.errorRate()).containsExactly(1 / 7.0, 2 / 7.0, 2 / 7.0);
+      assertThat(s.helped()).containsExactly(1, 0, 0);
+      assertThat(s.hurt()).containsExactly(0, 0, 0);
       assertThat(s.firstRate()).isEqualTo(2 / 7.0);
       assertThat(s.oracleRate()).isEqualTo(1 / 7.0);
       assertThat(s.current()).isEqualTo(0.2);
@@ -149,7 +149,7 @@ class ViewModelTest {
     @Test
     void surfaceCellsAreTheErrorAtEachLambdaAndMu() {
       // μ adds μ·2 to both hypotheses of b (two tokens each): it never changes a choice here
-      Sweeps.Surface s = Sweeps.surface(w, TinyCorpus.at(w, 0, 0), new double[] {0, 1}, new double[] {-1, 0, 1}, TaskProgress.NONE);
+      Sweeps.Surface s = Sweeps.surface(w, TinyCorpus.at(w, 0, 0), new double[] {0, 1}, new double[] {-1, 0, 1});
       assertThat(s.errorRate()[0]).containsExactly(1 / 7.0, 1 / 7.0, 1 / 7.0);
       assertThat(s.errorRate()[1]).containsExactly(2 / 7.0, 2 / 7.0, 2 / 7.0);
       assertThat(s.best()).containsExactly(0, 0);
