@@ -7,7 +7,7 @@ import picocli.CommandLine.Command;
 @Command(
     name = "lm",
     mixinStandardHelpOptions = true,
-    description = "Train, evaluate, mix, prune, convert and describe n-gram language models.",
+    description = "Train, evaluate, mix, prune, copy and describe n-gram language models.",
     subcommands = {
       LmTrainCommand.class,
       LmPerplexityCommand.class,

@@ -10,8 +10,9 @@ import steelyard.io.AtomicOutput;
 import steelyard.lm.BackoffModel;
 import steelyard.lm.ModelFiles;
 
-/** Convert a model between ARPA and the binary format. */
-@Command(name = "convert", mixinStandardHelpOptions = true, description = "Convert a model between ARPA (.arpa, .arpa.gz) and the binary format (.bin); the format follows the file names.")
+/** {@code lm copy}: write a model into another file, in the format its name asks for (ARPA text or packed binary). */
+@Command(name = "copy", mixinStandardHelpOptions = true,
+    description = "Copy a model into another file format: ARPA text (.arpa, .arpa.gz) or Steelyard's packed binary (.bin, fast to load); the format follows the file names.")
 public final class LmConvertCommand implements Callable<Integer> {
   @Spec picocli.CommandLine.Model.CommandSpec spec;
   @Mixin LmModelInput input;
@@ -27,7 +28,8 @@ public final class LmConvertCommand implements Callable<Integer> {
     ModelFiles.save(model, out);
     long n = 0;
     for (int k = 1; k <= model.order(); k++) n += model.ngramCount(k);
-    spec.commandLine().getOut().println("wrote " + out + ": order " + model.order() + ", " + n + " n-grams, " + model.vocabularySize() + " tokens");
+    spec.commandLine().getOut().println("copied " + input.lm + " to " + out + ": " + model.order() + "-gram model, " + n + " n-grams, "
+        + model.vocabularySize() + " token ids");
     spec.commandLine().getOut().flush();
     return 0;
   }

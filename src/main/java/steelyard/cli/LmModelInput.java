@@ -22,13 +22,13 @@ import steelyard.text.NormalisationOptions;
 import steelyard.text.Normaliser;
 import steelyard.text.Unit;
 
-/** Options of the commands that read one model: {@code --lm}, {@code --unk-log10}, {@code --progress}. */
+/** Options of the commands that read one model: {@code --lm}, {@code --oov-log10-prob}, {@code --progress}. */
 public final class LmModelInput {
   @Option(names = "--lm", required = true, paramLabel = "FILE", description = "Model file: .arpa, .arpa.gz or .bin.")
   public Path lm;
 
-  @Option(names = "--unk-log10", paramLabel = "X", defaultValue = "-7",
-      description = "log10 probability of out-of-vocabulary tokens for a model without <unk> (closed vocabulary). Default ${DEFAULT-VALUE}.")
+  @Option(names = "--oov-log10-prob", paramLabel = "X", defaultValue = "-7",
+      description = "log10 probability of an out-of-vocabulary token when the model lists no <unk> (closed vocabulary). Default ${DEFAULT-VALUE}.")
   public double unknownLog10;
 
   @Option(names = "--progress", description = "Show loading progress on stderr (default: only when attached to a console).")

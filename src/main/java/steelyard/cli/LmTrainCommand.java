@@ -36,8 +36,8 @@ import steelyard.text.Normaliser;
 public final class LmTrainCommand implements Callable<Integer> {
   @Spec CommandSpec spec;
 
-  @Option(names = "--text", required = true, paramLabel = "FILE", description = "Training corpus, one sentence per line.")
-  Path text;
+  @Option(names = "--corpus", required = true, paramLabel = "FILE", description = "Training corpus, one sentence per line.")
+  Path corpus;
 
   @Option(names = "--order", required = true, paramLabel = "N", description = "N-gram order, 1 to 6.")
   int order;
@@ -56,9 +56,13 @@ public final class LmTrainCommand implements Callable<Integer> {
       description = "Keep only the V most frequent words; the rest become <unk>. 0: no limit.")
   int maxVocab;
 
-  @Option(names = "--cutoffs", paramLabel = "C1,C2,…", split = ",",
-      description = "Per-order count cut-offs: an n-gram of order k seen at most Ck times is not listed (its mass goes to the back-off). C1 must be 0; the last value repeats.")
-  int[] cutoffs = new int[0];
+  @Option(names = "--min-count", paramLabel = "ORDER=C", split = ",",
+      description = "Keep n-grams of this order (2 and up) only when seen at least C times, e.g. 2=2,3=2; orders not named keep every n-gram. A dropped n-gram's probability mass goes to the back-off.")
+  List<String> minCount = new ArrayList<>();
+
+  /** 0.1's form of --min-count, hidden: per-order cut-offs C1,C2,… (C1 = 0, the last repeating), dropping counts ≤ Ck. */
+  @Option(names = "--cutoffs", hidden = true, paramLabel = "C1,C2,…", split = ",", description = "Old form of --min-count.")
+  int[] cutoffs;
 
   @Option(names = "--out", required = true, paramLabel = "FILE", description = "Model file: .arpa, .arpa.gz or .bin.")
   Path out;
@@ -73,12 +77,12 @@ public final class LmTrainCommand implements Callable<Integer> {
   public Integer call() throws IOException {
     TrainingOptions options = options();
     Normaliser normaliser = Normaliser.create(options.normalisation());
-    CorpusFile corpus = new CorpusFile(text, normaliser, options.unit());
+    CorpusFile lines = new CorpusFile(corpus, normaliser, options.unit());
     Trainer trainer = new Trainer(options);
     TrainedModel trained;
     try (ProgressBar bar = progressBar()) {
       if (bar != null) trainer.onSentences(bar::stepTo);
-      trained = trainer.train(corpus);
+      trained = trainer.train(lines);
     }
     long saveStart = System.nanoTime();
     ModelFiles.save(trained.backoffModel(), out);
@@ -97,18 +101,16 @@ public final class LmTrainCommand implements Callable<Integer> {
           "mkn, wb or abs to save a model (add-k is for in-memory comparisons only)");
     if (vocabMinCount < 0) throw InputException.option("--vocab-min-count", "negative count " + vocabMinCount, "0 or more");
     if (maxVocab < 0) throw InputException.option("--max-vocab", "negative size " + maxVocab, "0 (no limit) or more");
-    for (int c : cutoffs) if (c < 0) throw InputException.option("--cutoffs", "negative cut-off " + c, "counts of 0 or more");
-    if (cutoffs.length > 0 && cutoffs[0] != 0)
-      throw InputException.option("--cutoffs", "the unigram cut-off is " + cutoffs[0],
-          "0 for unigrams (use --vocab-min-count to drop rare words)");
+    int[] minCounts = cutoffs != null ? MinCounts.fromCutoffs(cutoffs, order, minCount, spec.commandLine().getErr())
+        : MinCounts.parse(minCount, order);
     String name = out.getFileName() == null ? "" : out.getFileName().toString().toLowerCase(Locale.ROOT);
     if (!(name.endsWith(".arpa") || name.endsWith(".arpa.gz") || name.endsWith(".bin")))
       throw InputException.option("--out", "unknown model file type '" + out + "'", "a name ending in .arpa, .arpa.gz or .bin");
-    if (sameFile(text, out))
-      throw InputException.option("--out", "'" + out + "' is the training corpus", "a different file than --text");
-    if (!Files.isRegularFile(text)) throw InputException.inFile(text, "no such file", "a readable corpus file");
+    if (sameFile(corpus, out))
+      throw InputException.option("--out", "'" + out + "' is the training corpus", "a different file than --corpus");
+    if (!Files.isRegularFile(corpus)) throw InputException.inFile(corpus, "no such file", "a readable corpus file");
     return new TrainingOptions(order, normalisation.unit, normalisation.options(), smoothing, vocabMinCount, maxVocab,
-        cutoffs, 1.0);
+        minCounts, 1.0);
   }
 
   private static boolean sameFile(Path a, Path b) throws IOException {
@@ -162,7 +164,7 @@ public final class LmTrainCommand implements Callable<Integer> {
         Discounts d = r.discounts().get(k - 1);
         o.put("count_of_counts", d.countOfCounts());
         o.put("discounts", d.values());
-        o.put("discount_fallback", d.fallback());
+        o.put("discount_replaced", d.replaced());
       }
       orders.add(o);
     }

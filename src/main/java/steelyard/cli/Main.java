@@ -53,6 +53,11 @@ public final class Main implements Runnable {
   /** The configured command line, with the project's exit codes and error printing. */
   public static CommandLine commandLine() {
     CommandLine cl = new CommandLine(new Main());
+    OldSpellings.install(cl);
+    cl.setExecutionStrategy(parsed -> {
+      OldSpellings.warnAboutCommands(parsed);
+      return new CommandLine.RunLast().execute(parsed);
+    });
     cl.setExecutionExceptionHandler(Main::handleExecutionException);
     cl.setParameterExceptionHandler(Main::handleParameterException);
     cl.setCaseInsensitiveEnumValuesAllowed(true);

@@ -20,7 +20,7 @@ public final class RescoreWeightOptions {
   @Option(names = "--length-weight", paramLabel = "μ", description = "Added per token; negative penalises long hypotheses (default 0).")
   Double lengthWeight;
 
-  @Option(names = "--posterior-scale", paramLabel = "α", description = "Multiplies totals before the softmax (default 1).")
+  @Option(names = "--posterior-sharpness", paramLabel = "α", description = "Sharpness of the posteriors: totals are multiplied by α before the softmax; above 1 sharper, below 1 flatter (default 1).")
   Double posteriorScale;
 
   @Option(names = "--system-weight", paramLabel = "NAME=V", description = "Weight of a system when mixing posteriors (repeatable; default equal).")
@@ -60,9 +60,9 @@ public final class RescoreWeightOptions {
     s.lmWeight = check("--lm-weight", lmWeight);
     s.oovWeight = check("--oov-weight", oovWeight);
     s.lengthWeight = check("--length-weight", lengthWeight);
-    s.posteriorScale = check("--posterior-scale", posteriorScale);
+    s.posteriorScale = check("--posterior-sharpness", posteriorScale);
     if (posteriorScale != null && !(posteriorScale > 0))
-      throw InputException.option("--posterior-scale", "is " + posteriorScale, "a number > 0");
+      throw InputException.option("--posterior-sharpness", "is " + posteriorScale, "a number > 0");
     s.latticeLmWeight = check("--lattice-lm-weight", latticeLmWeight);
     s.latticeLengthWeight = check("--lattice-length-weight", latticeLengthWeight);
     s.mbrMaxHypotheses = positive("--mbr-max-hyps", mbrMaxHyps);

@@ -95,7 +95,7 @@ public final class BinaryModelFile {
   /** Reads a model written by {@link #write}. */
   public static CompactModel read(Path file) {
     ByteBuffer all = readAll(file);
-    if (all.remaining() == 0) throw InputException.inFile(file, "empty file", "a binary model file written by 'steelyard lm convert'");
+    if (all.remaining() == 0) throw InputException.inFile(file, "empty file", "a binary model file written by 'steelyard lm copy'");
     if (all.remaining() < HEADER) throw bad(file, "file too short for the header (" + all.remaining() + " bytes; truncated?)");
     byte[] magic = new byte[8];
     all.get(magic);
@@ -207,6 +207,6 @@ public final class BinaryModelFile {
   }
 
   private static InputException bad(Path file, String problem) {
-    return InputException.inFile(file, problem, "a binary model file written by 'steelyard lm convert' (format version " + VERSION + ")");
+    return InputException.inFile(file, problem, "a binary model file written by 'steelyard lm copy' (format version " + VERSION + ")");
   }
 }

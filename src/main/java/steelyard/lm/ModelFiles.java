@@ -21,7 +21,7 @@ public final class ModelFiles {
 
     public LoadOptions {
       if (!(unknownFloorLog10 <= 0) || Double.isInfinite(unknownFloorLog10)) {
-        throw InputException.option("--unk-log10", "floor " + unknownFloorLog10 + " is not a finite log10 probability", "a number <= 0");
+        throw InputException.option("--oov-log10-prob", "value " + unknownFloorLog10 + " is not a finite log10 probability", "a number <= 0");
       }
       if (warnings == null) warnings = w -> { };
     }

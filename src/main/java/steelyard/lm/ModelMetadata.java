@@ -1,6 +1,7 @@
 package steelyard.lm;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
 import steelyard.text.NormalisationOptions;
@@ -11,7 +12,9 @@ import steelyard.text.Unit;
  * {@code \data\}; binary: a string block). Keys read back: {@code steelyard.unit} ({@code word}|{@code char})
  * and {@code steelyard.normalisation.fold_case|strip_punct|split_hyphens|ignore_space} ({@code true}|{@code false});
  * unknown keys and free text are kept but do not change behaviour. Missing keys mean word unit and
- * {@link NormalisationOptions#EXACT}.
+ * {@link NormalisationOptions#EXACT}. {@link #minCounts} reads the training's per-order minimum counts,
+ * {@code steelyard.min_count.K=C}, and the older single line {@value #CUTOFFS_V1}{@code =C1,C2,…} (count
+ * cut-offs: n-grams seen at most Ck times dropped, the last value repeating) that 0.1 wrote.
  */
 public final class ModelMetadata {
   public static final String UNIT = "steelyard.unit";
@@ -19,6 +22,10 @@ public final class ModelMetadata {
   public static final String STRIP_PUNCT = "steelyard.normalisation.strip_punct";
   public static final String SPLIT_HYPHENS = "steelyard.normalisation.split_hyphens";
   public static final String IGNORE_SPACE = "steelyard.normalisation.ignore_space";
+  /** Prefix of the per-order minimum counts: {@code steelyard.min_count.2=2}. */
+  public static final String MIN_COUNT = "steelyard.min_count.";
+  /** The cut-off line written by release 0.1, still read: {@code none} or {@code C1,C2,…}. */
+  public static final String CUTOFFS_V1 = "steelyard.cutoffs";
 
   private ModelMetadata() {}
 
@@ -52,6 +59,42 @@ public final class ModelMetadata {
     addFlag(out, metadata, IGNORE_SPACE, n.ignoreWhitespace());
     out.addAll(metadata);
     return out;
+  }
+
+  /**
+   * The minimum count of every order 1 … {@code order} (index k−1) recorded at training, or null when the lines
+   * record none (a model from elsewhere) or a value is not a count. From 0.1's cut-off line, a cut-off C is
+   * the minimum count C + 1.
+   */
+  public static int[] minCounts(List<String> lines, int order) {
+    int[] m = new int[order];
+    boolean any = false;
+    for (int k = 1; k <= order; k++) {
+      String v = value(lines, MIN_COUNT + k);
+      if (v != null) any = true;
+      m[k - 1] = v == null ? 1 : count(v);
+      if (m[k - 1] < 1) return null;
+    }
+    if (any) return m;
+    String legacy = value(lines, CUTOFFS_V1);
+    if (legacy == null) return null;
+    Arrays.fill(m, 1);
+    if (legacy.equals("none")) return m;
+    String[] cut = legacy.split(",");
+    for (int k = 1; k <= order; k++) {
+      int c = count(cut[Math.min(k, cut.length) - 1].strip());
+      if (c < 0 || c == Integer.MAX_VALUE) return null;
+      m[k - 1] = c + 1;
+    }
+    return m;
+  }
+
+  private static int count(String s) {
+    try {
+      return Integer.parseInt(s);
+    } catch (NumberFormatException e) {
+      return -1;
+    }
   }
 
   /** The value of {@code key} in {@code key=value} lines (last one wins), or null. */

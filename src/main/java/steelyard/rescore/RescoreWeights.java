@@ -14,7 +14,7 @@ import steelyard.lattice.LatticeSettings;
  * @param lmWeight             λ, weight of the model's ln P(sentence)
  * @param oovWeight            ω, added per out-of-vocabulary token
  * @param lengthWeight         μ, added per token (negative penalises long hypotheses)
- * @param posteriorScale       α &gt; 0, multiplies totals before the softmax
+ * @param posteriorScale       α &gt; 0, the posterior sharpness ({@code --posterior-sharpness}): multiplies totals before the softmax
  * @param systemWeights        system name → weight &gt; 0 (systems not listed weigh 1 before normalising)
  * @param mbrMaxHypotheses     cap on distinct texts (by posterior) entering the MBR sum
  * @param latticeLmWeight      λ′, LM weight of the confusion-network search
@@ -45,7 +45,7 @@ public record RescoreWeights(
     features = Collections.unmodifiableMap(new LinkedHashMap<>(features));
     systemWeights = Collections.unmodifiableMap(new TreeMap<>(systemWeights));
     if (!(posteriorScale > 0) || !Double.isFinite(posteriorScale))
-      throw new IllegalArgumentException("posterior scale must be finite and > 0: " + posteriorScale);
+      throw new IllegalArgumentException("posterior sharpness must be finite and > 0: " + posteriorScale);
     if (mbrMaxHypotheses < 1 || beam < 1 || latticeMaxHypotheses < 1)
       throw new IllegalArgumentException("caps and beam must be >= 1");
   }

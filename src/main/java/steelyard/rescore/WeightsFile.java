@@ -27,12 +27,14 @@ import steelyard.text.Unit;
  * Reads and writes the weights file (JSON, schema {@value #FORMAT} version {@value #VERSION}, documented in
  * the README). Every problem is an {@link InputException} naming {@code file:line:column} from the JSON
  * parser's location: text that is not JSON, an unknown key or weight name, a value of the wrong type.
+ * Version 1 files are still read; they differ only in naming the posterior sharpness
+ * {@value #POSTERIOR_SHARPNESS_V1}. Files are always written as version {@value #VERSION}.
  *
  * <pre>{@code
- * {"format": "steelyard-weights", "version": 1, "unit": "word", "log_base": "e",
+ * {"format": "steelyard-weights", "version": 2, "unit": "word", "log_base": "e",
  *  "model": {"file": "dock.arpa", "order": 3, "bytes": 81234, "sha256": "…"},
  *  "methods": {"nbest": {"features": {"acoustic": 1.0}, "lm_weight": 9.5, "oov_weight": 0.0,
- *                        "length_weight": -0.5, "posterior_scale": 0.1, "system_weights": {}},
+ *                        "length_weight": -0.5, "posterior_sharpness": 0.1, "system_weights": {}},
  *              "mbr": {"max_hypotheses": 100},
  *              "lattice": {"lm_weight": 0.3, "length_weight": 0.0, "beam": 64, "max_hypotheses": 200,
  *                          "vote_confidence": null}}}
@@ -40,7 +42,13 @@ import steelyard.text.Unit;
  */
 public final class WeightsFile {
   public static final String FORMAT = "steelyard-weights";
-  public static final int VERSION = 1;
+  public static final int VERSION = 2;
+  /** The oldest version still read. */
+  public static final int OLDEST_VERSION = 1;
+  /** Key of the posterior sharpness α in {@code methods.nbest}. */
+  public static final String POSTERIOR_SHARPNESS = "posterior_sharpness";
+  /** The same key as version 1 spelt it. */
+  public static final String POSTERIOR_SHARPNESS_V1 = "posterior_scale";
 
   private static final JsonFactory JSON = JsonFactory.builder()
       .disable(JsonFactory.Feature.INTERN_FIELD_NAMES)
@@ -124,7 +132,7 @@ public final class WeightsFile {
       number(g, "lm_weight", s.lmWeight);
       number(g, "oov_weight", s.oovWeight);
       number(g, "length_weight", s.lengthWeight);
-      number(g, "posterior_scale", s.posteriorScale);
+      number(g, POSTERIOR_SHARPNESS, s.posteriorScale);
       writeMap(g, "system_weights", s.systemWeights);
       g.writeEndObject();
       g.writeObjectFieldStart("mbr");

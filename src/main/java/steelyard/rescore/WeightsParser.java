@@ -1,5 +1,6 @@
 package steelyard.rescore;
 
+import com.fasterxml.jackson.core.JsonLocation;
 import com.fasterxml.jackson.core.JsonParser;
 import com.fasterxml.jackson.core.JsonToken;
 import java.io.IOException;
@@ -19,6 +20,10 @@ final class WeightsParser {
   private final JsonParser p;
   private final Set<String> knownFeatures;
   private final WeightsSpec spec = new WeightsSpec();
+  /** The version read, 0 before "version"; the posterior-sharpness key's spelling is checked against it at the end. */
+  private int version;
+  private String sharpnessKey;
+  private JsonLocation sharpnessAt;
 
   WeightsParser(Path file, JsonParser p, Collection<String> knownFeatures) {
     this.file = file;
@@ -43,7 +48,9 @@ final class WeightsParser {
           break;
         case "version":
           int v = integer(0);
-          if (v != WeightsFile.VERSION) throw fail("unsupported version " + v, "version " + WeightsFile.VERSION);
+          if (v < WeightsFile.OLDEST_VERSION || v > WeightsFile.VERSION)
+            throw fail("unsupported version " + v, "version " + WeightsFile.VERSION + " (version " + WeightsFile.OLDEST_VERSION + " is still read)");
+          version = v;
           sawVersion = true;
           break;
         case "unit":
@@ -68,6 +75,7 @@ final class WeightsParser {
     if (p.nextToken() != null) throw fail("text after the closing brace", "one JSON object");
     if (!sawFormat || !sawVersion)
       throw InputException.inFile(file, "missing \"" + (sawFormat ? "version" : "format") + "\"", "\"format\": \"" + WeightsFile.FORMAT + "\", \"version\": " + WeightsFile.VERSION);
+    checkSharpnessSpelling();
     return spec;
   }
 
@@ -118,11 +126,25 @@ final class WeightsParser {
         case "lm_weight": spec.lmWeight = number(); break;
         case "oov_weight": spec.oovWeight = number(); break;
         case "length_weight": spec.lengthWeight = number(); break;
-        case "posterior_scale": spec.posteriorScale = positive(); break;
+        case WeightsFile.POSTERIOR_SHARPNESS, WeightsFile.POSTERIOR_SHARPNESS_V1:
+          spec.posteriorScale = positive();
+          sharpnessKey = key;
+          sharpnessAt = p.currentTokenLocation();
+          break;
         case "system_weights": systems(); break;
-        default: throw unknownKey(key, "features, lm_weight, oov_weight, length_weight, posterior_scale, system_weights");
+        default: throw unknownKey(key, "features, lm_weight, oov_weight, length_weight, " + WeightsFile.POSTERIOR_SHARPNESS + ", system_weights");
       }
     }
+  }
+
+  /** Version 1 spells the posterior sharpness {@code posterior_scale}, later versions {@code posterior_sharpness}. */
+  private void checkSharpnessSpelling() {
+    if (sharpnessKey == null) return;
+    String expected = version == 1 ? WeightsFile.POSTERIOR_SHARPNESS_V1 : WeightsFile.POSTERIOR_SHARPNESS;
+    if (sharpnessKey.equals(expected)) return;
+    throw WeightsFile.at(file, sharpnessAt, "'" + sharpnessKey + "' in a version " + version + " file", version == 1
+        ? "\"" + expected + "\" in version 1, or \"version\": " + WeightsFile.VERSION + " with \"" + WeightsFile.POSTERIOR_SHARPNESS + "\""
+        : "\"" + expected + "\" (\"" + sharpnessKey + "\" is the version 1 spelling)");
   }
 
   private void mbr() throws IOException {

@@ -71,7 +71,7 @@ public class RescoreBenchmark {
       while (r.hasNext()) w.write(r.next().first().text() + "\n");
     }
     Files.delete(source);
-    int code = Main.run("lm", "train", "--text", corpus.toString(), "--order", "3", "--out", model.toString());
+    int code = Main.run("lm", "train", "--corpus", corpus.toString(), "--order", "3", "--out", model.toString());
     if (code != 0) throw new IllegalStateException("lm train failed: " + code);
     SyntheticHypotheses.write(hyps, (long) utterances * perUtterance, perUtterance, 42L);
   }

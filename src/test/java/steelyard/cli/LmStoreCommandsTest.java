@@ -20,7 +20,7 @@ import steelyard.lm.ModelFiles;
 import steelyard.text.NormalisationOptions;
 import steelyard.text.Unit;
 
-/** The lm info, convert, perplexity and sentence-scores commands through the real command line. */
+/** The lm describe, copy, perplexity and sentence-scores commands through the real command line. */
 class LmStoreCommandsTest {
   static final Path WAREHOUSE = Path.of("src/test/resources/lm/warehouse.arpa");
 
@@ -111,29 +111,54 @@ class LmStoreCommandsTest {
   }
 
   @Test
-  void convertRoundTripsThroughBinaryAndInfoDescribesIt() throws Exception {
+  void copyRoundTripsThroughBinaryAndDescribeDescribesIt() throws Exception {
     Path bin = dir.resolve("w.bin");
     Path back = dir.resolve("w.arpa");
-    assertThat(run("lm", "convert", "--lm", WAREHOUSE.toString(), "--out", bin.toString())).isEqualTo(0);
-    assertThat(run("lm", "convert", "--lm", bin.toString(), "--out", back.toString())).isEqualTo(0);
+    assertThat(run("lm", "copy", "--lm", WAREHOUSE.toString(), "--out", bin.toString())).isEqualTo(0);
+    assertThat(run("lm", "copy", "--lm", bin.toString(), "--out", back.toString())).isEqualTo(0);
     assertThat(ModelFiles.loadExact(back).ngramCount(3)).isEqualTo(2);
-    Path info = dir.resolve("info.json");
-    assertThat(run("lm", "info", "--lm", bin.toString(), "--json", info.toString())).isEqualTo(0);
-    JsonNode j = json(info);
-    assertThat(j.get("format").asText()).isEqualTo("binary");
+    Path description = dir.resolve("describe.json");
+    assertThat(run("lm", "describe", "--lm", bin.toString(), "--json", description.toString())).isEqualTo(0);
+    JsonNode j = json(description);
+    assertThat(j.get("file_format").asText()).isEqualTo("binary");
     assertThat(j.get("order").asInt()).isEqualTo(3);
-    assertThat(j.get("ngram_counts").toString()).isEqualTo("[6,2,2]");
+    assertThat(j.get("orders").findValuesAsText("ngrams")).containsExactly("6", "2", "2");
+    assertThat(j.get("ngrams_total").asLong()).isEqualTo(10);
     assertThat(j.get("vocabulary_size").asInt()).isEqualTo(6);
-    assertThat(j.get("has_unk").asBoolean()).isTrue();
+    assertThat(j.get("unk_listed").asBoolean()).isTrue();
+    assertThat(j.get("oov_log10_prob").isNull()).as("only a closed vocabulary uses the fixed value").isTrue();
     assertThat(j.get("unit").asText()).isEqualTo("word");
     assertThat(j.get("normalisation").get("fold_case").asBoolean()).isTrue();
-    assertThat(j.get("bytes_per_ngram").asDouble()).isPositive();
-    assertThat(out.toString()).contains("bytes per n-gram");
+    assertThat(j.get("memory").get("bytes_per_ngram").asDouble()).isPositive();
+    run("lm", "describe", "--lm", bin.toString());
+    assertThat(out.toString()).contains("w.bin  (Steelyard packed binary)", "kept when seen at least", "bytes of n-gram tables");
   }
 
   @Test
-  void convertRefusesToOverwriteItsInput() {
-    assertThat(run("lm", "convert", "--lm", WAREHOUSE.toString(), "--out", WAREHOUSE.toString())).isEqualTo(Main.BAD_INPUT);
+  void describeReadsTheMinimumCountsAModelRecordsInBothSpellings() throws Exception {
+    Path text = dir.resolve("corpus.txt");
+    Files.writeString(text, "ten crates to bay two\nten crates to bay nine\nten pears\n");
+    Path model = dir.resolve("m.arpa");
+    assertThat(run("lm", "train", "--corpus", text.toString(), "--order", "3", "--min-count", "3=2", "--out", model.toString())).isZero();
+    Path current = dir.resolve("current.json");
+    assertThat(run("lm", "describe", "--lm", model.toString(), "--json", current.toString())).isZero();
+    assertThat(json(current).get("orders").findValuesAsText("min_count")).containsExactly("1", "1", "2");
+    // the same model with release 0.1's single cut-off line instead (cut-offs 0,0,1: trigrams seen once dropped)
+    String old = Files.readString(model).replaceAll("# steelyard\\.min_count\\.\\d=\\d\n", "")
+        .replace("# steelyard.max_vocab=0\n", "# steelyard.max_vocab=0\n# steelyard.cutoffs=0,0,1\n");
+    Path oldModel = dir.resolve("old.arpa");
+    Files.writeString(oldModel, old);
+    Path legacy = dir.resolve("legacy.json");
+    assertThat(run("lm", "describe", "--lm", oldModel.toString(), "--json", legacy.toString())).isZero();
+    assertThat(json(legacy).get("orders").findValuesAsText("min_count")).containsExactly("1", "1", "2");
+    Path none = dir.resolve("none.json");
+    assertThat(run("lm", "describe", "--lm", WAREHOUSE.toString(), "--json", none.toString())).isZero();
+    assertThat(json(none).get("orders").get(0).get("min_count").isNull()).as("a model that records none").isTrue();
+  }
+
+  @Test
+  void copyRefusesToOverwriteItsInput() {
+    assertThat(run("lm", "copy", "--lm", WAREHOUSE.toString(), "--out", WAREHOUSE.toString())).isEqualTo(Main.BAD_INPUT);
     assertThat(err.toString()).contains("output path is the input");
   }
 
@@ -142,7 +167,7 @@ class LmStoreCommandsTest {
     Path text = dir.resolve("t.txt");
     Files.writeString(text, "apples kumquats\n");
     Path csv = dir.resolve("s.csv");
-    assertThat(run("lm", "sentence-scores", "--lm", "src/test/resources/lm/closed.arpa", "--text", text.toString(), "--csv", csv.toString(), "--unk-log10", "-5")).isEqualTo(0);
+    assertThat(run("lm", "sentence-scores", "--lm", "src/test/resources/lm/closed.arpa", "--text", text.toString(), "--csv", csv.toString(), "--oov-log10-prob", "-5")).isEqualTo(0);
     assertThat(err.toString()).contains("warning").contains("closed-vocabulary").contains("-5");
     // P(apples | <s>) = bow(<s>) -0.30 + P(apples) -1.00; P(kumquats | apples) = bow(apples) -0.20 + floor -5;
     // P(</s> | <s> apples ...) history after an unknown word is empty: P(</s>) = -0.70

@@ -16,6 +16,8 @@ import java.util.List;
 import org.junit.jupiter.api.Nested;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.CsvSource;
 import picocli.CommandLine;
 import steelyard.lm.BackoffModel;
 import steelyard.lm.ModelFiles;
@@ -40,7 +42,7 @@ class LmTrainCommandTest {
   class Refusals {
     @Test
     void addKCannotBeSavedAsAModelFile() throws Exception {
-      Run r = run("lm", "train", "--text", corpus().toString(), "--order", "2", "--smoothing", "addk",
+      Run r = run("lm", "train", "--corpus", corpus().toString(), "--order", "2", "--smoothing", "addk",
           "--out", dir.resolve("m.arpa").toString());
       assertThat(r.exit()).isEqualTo(Main.BAD_INPUT);
       assertThat(r.err()).contains("--smoothing: add-k smoothing has no exact back-off form").doesNotContain("Exception");
@@ -51,7 +53,7 @@ class LmTrainCommandTest {
     void theOutputMayNotOverwriteTheCorpus() throws Exception {
       Path c = dir.resolve("same.arpa");
       Files.writeString(c, "a b\n");
-      Run r = run("lm", "train", "--text", c.toString(), "--order", "2", "--out", c.toString());
+      Run r = run("lm", "train", "--corpus", c.toString(), "--order", "2", "--out", c.toString());
       assertThat(r.exit()).isEqualTo(Main.BAD_INPUT);
       assertThat(r.err()).contains("is the training corpus");
       assertThat(Files.readString(c)).isEqualTo("a b\n");
@@ -59,23 +61,37 @@ class LmTrainCommandTest {
 
     @Test
     void anUnknownModelFileTypeIsRefusedBeforeTraining() throws Exception {
-      Run r = run("lm", "train", "--text", corpus().toString(), "--order", "2", "--out", dir.resolve("m.txt").toString());
+      Run r = run("lm", "train", "--corpus", corpus().toString(), "--order", "2", "--out", dir.resolve("m.txt").toString());
       assertThat(r.exit()).isEqualTo(Main.BAD_INPUT);
       assertThat(r.err()).contains("expected a name ending in .arpa, .arpa.gz or .bin");
     }
 
     @Test
-    void orderOutOfRangeAndUnigramCutoffAreRefused() throws Exception {
+    void orderOutOfRangeIsRefused() throws Exception {
       String c = corpus().toString(), o = dir.resolve("m.arpa").toString();
-      assertThat(run("lm", "train", "--text", c, "--order", "7", "--out", o).err()).contains("--order: order 7 is out of range");
-      Run r = run("lm", "train", "--text", c, "--order", "3", "--cutoffs", "1,1,1", "--out", o);
+      assertThat(run("lm", "train", "--corpus", c, "--order", "7", "--out", o).err()).contains("--order: order 7 is out of range");
+    }
+
+    @ParameterizedTest(name = "[{index}] --min-count {0}")
+    @CsvSource(delimiter = '|', value = {
+        "1=2       | '1=2' names order 1; expected orders 2 and up (use --vocab-min-count",
+        "4=2       | '4=2' names order 4, which a 3-gram model does not have; expected an order from 2 to 3",
+        "2=0       | '2=0' asks for a minimum count of 0; expected a count of 1 or more",
+        "2=2,2=3   | order 2 is named twice",
+        "2         | '2' is not ORDER=C",
+        "2=-1      | '2=-1' is not ORDER=C",
+        "x=2       | 'x=2' is not ORDER=C"})
+    void malformedMinimumCountsAreRefusedWithTheRule(String value, String message) throws Exception {
+      Path o = dir.resolve("m.arpa");
+      Run r = run("lm", "train", "--corpus", corpus().toString(), "--order", "3", "--min-count", value, "--out", o.toString());
       assertThat(r.exit()).isEqualTo(Main.BAD_INPUT);
-      assertThat(r.err()).contains("--cutoffs: the unigram cut-off is 1");
+      assertThat(r.err()).contains("--min-count: " + message).doesNotContain("Exception");
+      assertThat(o).doesNotExist();
     }
 
     @Test
     void aMissingCorpusIsAnInputError() {
-      Run r = run("lm", "train", "--text", dir.resolve("none.txt").toString(), "--order", "2",
+      Run r = run("lm", "train", "--corpus", dir.resolve("none.txt").toString(), "--order", "2",
           "--out", dir.resolve("m.arpa").toString());
       assertThat(r.exit()).isEqualTo(Main.BAD_INPUT);
       assertThat(r.err()).contains("none.txt: no such file");
@@ -87,7 +103,7 @@ class LmTrainCommandTest {
     @Test
     void writesAModelThatScoresLikeTheTrainerAndReportsInJson() throws Exception {
       Path model = dir.resolve("m.arpa");
-      Run r = run("lm", "train", "--text", corpus().toString(), "--order", "3", "--fold-case", "--out", model.toString(),
+      Run r = run("lm", "train", "--corpus", corpus().toString(), "--order", "3", "--fold-case", "--out", model.toString(),
           "--json", "-");
       assertThat(r.exit()).as(r.err()).isEqualTo(Main.OK);
       assertThat(r.err()).contains("trained a word 3-gram model (mkn)").contains("1 empty lines skipped");
@@ -114,37 +130,92 @@ class LmTrainCommandTest {
     void theSameCorpusGivesByteIdenticalModelFiles() throws Exception {
       Path a = dir.resolve("a.arpa"), b = dir.resolve("b.arpa");
       String c = corpus().toString();
-      assertThat(run("lm", "train", "--text", c, "--order", "4", "--out", a.toString()).exit()).isEqualTo(Main.OK);
-      assertThat(run("lm", "train", "--text", c, "--order", "4", "--out", b.toString()).exit()).isEqualTo(Main.OK);
+      assertThat(run("lm", "train", "--corpus", c, "--order", "4", "--out", a.toString()).exit()).isEqualTo(Main.OK);
+      assertThat(run("lm", "train", "--corpus", c, "--order", "4", "--out", b.toString()).exit()).isEqualTo(Main.OK);
       assertThat(Files.readAllBytes(a)).isEqualTo(Files.readAllBytes(b));
     }
 
     @Test
-    void vocabularyLimitsAndCutoffsAreAppliedAndRecorded() throws Exception {
+    void vocabularyLimitsAndMinimumCountsAreAppliedAndRecorded() throws Exception {
       Path model = dir.resolve("v.arpa");
-      Run r = run("lm", "train", "--text", corpus().toString(), "--order", "3", "--vocab-min-count", "2",
-          "--cutoffs", "0,1", "--smoothing", "abs", "--out", model.toString(), "--json", "-");
+      Run r = run("lm", "train", "--corpus", corpus().toString(), "--order", "3", "--vocab-min-count", "2",
+          "--min-count", "3=2", "--smoothing", "abs", "--out", model.toString(), "--json", "-");
       assertThat(r.exit()).as(r.err()).isEqualTo(Main.OK);
       BackoffModel lm = ModelFiles.loadExact(model);
       assertThat(lm.wordId("apples")).as("seen once").isEqualTo(lm.unknownId());
       assertThat(lm.wordId("crate")).as("seen twice").isNotEqualTo(lm.unknownId());
-      assertThat(lm.metadata()).contains("steelyard.vocab_min_count=2", "steelyard.cutoffs=0,1", "steelyard.smoothing=abs");
+      assertThat(lm.metadata()).contains("steelyard.vocab_min_count=2", "steelyard.smoothing=abs",
+          "steelyard.min_count.1=1", "steelyard.min_count.2=1", "steelyard.min_count.3=2");
       JsonNode j = new ObjectMapper().readTree(r.out());
       assertThat(j.get("unk_tokens").asLong()).isEqualTo(3); // apples, Two, crates
+      JsonNode bigrams = j.get("ngrams").get(1);
       JsonNode trigrams = j.get("ngrams").get(2);
+      assertThat(bigrams.get("listed").asLong()).as("order 2 not named: all kept").isEqualTo(bigrams.get("distinct").asLong());
       assertThat(trigrams.get("listed").asLong()).isLessThan(trigrams.get("distinct").asLong());
     }
 
     @Test
     void characterModelsUseTheSpaceToken() throws Exception {
       Path model = dir.resolve("c.arpa.gz");
-      Run r = run("lm", "train", "--text", corpus().toString(), "--order", "4", "--unit", "char",
+      Run r = run("lm", "train", "--corpus", corpus().toString(), "--order", "4", "--unit", "char",
           "--smoothing", "wb", "--out", model.toString());
       assertThat(r.exit()).as(r.err()).isEqualTo(Main.OK);
       BackoffModel lm = ModelFiles.loadExact(model);
       assertThat(lm.wordId("<sp>")).isNotEqualTo(lm.unknownId());
       assertThat(lm.wordId("p")).isNotEqualTo(lm.unknownId());
       assertThat(lm.metadata()).contains("steelyard.unit=char", "steelyard.smoothing=wb");
+    }
+  }
+
+  @Nested
+  class OldSpellingsOfRelease01 {
+    @Test
+    void cutoffsStillWorkAsTheMinimumCountOneHigherWithAOneLineNotice() throws Exception {
+      Path old = dir.resolve("old.arpa"), current = dir.resolve("new.arpa");
+      Run r = run("lm", "train", "--corpus", corpus().toString(), "--order", "3", "--cutoffs", "0,1", "--out", old.toString());
+      assertThat(r.exit()).as(r.err()).isEqualTo(Main.OK);
+      assertThat(r.err()).contains("steelyard: warning: --cutoffs 0,1 is an old spelling, accepted for one more release; use --min-count 2=2,3=2");
+      assertThat(r.err().lines().filter(l -> l.contains("old spelling"))).hasSize(1);
+      assertThat(run("lm", "train", "--corpus", corpus().toString(), "--order", "3", "--min-count", "2=2,3=2",
+          "--out", current.toString()).exit()).isEqualTo(Main.OK);
+      assertThat(Files.readAllBytes(old)).as("the last cut-off repeats, as it did in 0.1").isEqualTo(Files.readAllBytes(current));
+    }
+
+    @Test
+    void theModelFileNeverRecordsTheOldSpelling() throws Exception {
+      Path model = dir.resolve("old.arpa");
+      assertThat(run("lm", "train", "--corpus", corpus().toString(), "--order", "2", "--cutoffs", "0,1", "--out", model.toString())
+          .exit()).isEqualTo(Main.OK);
+      assertThat(Files.readString(model)).doesNotContain("cutoff").contains("# steelyard.min_count.2=2");
+    }
+
+    @Test
+    void cutoffsKeepTheirOldRules() throws Exception {
+      String c = corpus().toString(), o = dir.resolve("m.arpa").toString();
+      Run unigram = run("lm", "train", "--corpus", c, "--order", "3", "--cutoffs", "1,1,1", "--out", o);
+      assertThat(unigram.exit()).isEqualTo(Main.BAD_INPUT);
+      assertThat(unigram.err()).contains("--cutoffs: the unigram cut-off is 1");
+      Run both = run("lm", "train", "--corpus", c, "--order", "3", "--cutoffs", "0,1", "--min-count", "2=2", "--out", o);
+      assertThat(both.exit()).isEqualTo(Main.BAD_INPUT);
+      assertThat(both.err()).contains("--cutoffs: given together with --min-count");
+    }
+
+    @Test
+    void textStillNamesTheCorpusWithANotice() throws Exception {
+      Path model = dir.resolve("t.arpa");
+      Run r = run("lm", "train", "--text", corpus().toString(), "--order", "2", "--out", model.toString());
+      assertThat(r.exit()).as(r.err()).isEqualTo(Main.OK);
+      assertThat(r.err()).contains("steelyard: warning: --text is an old spelling, accepted for one more release; use --corpus");
+      assertThat(model).exists();
+    }
+
+    @Test
+    void theHelpShowsOnlyTheNewSpellings() {
+      StringWriter help = new StringWriter();
+      CommandLine cl = Main.commandLine();
+      cl.setOut(new PrintWriter(help, true));
+      assertThat(cl.execute("lm", "train", "--help")).isZero();
+      assertThat(help.toString()).contains("--corpus", "--min-count").doesNotContain("--cutoffs").doesNotContain("--text");
     }
   }
 }

@@ -45,7 +45,7 @@ class RescoreCommandTest {
         Path out = dir.resolve("picks-" + k + ".csv");
         Path js = dir.resolve("summary-" + k + ".json");
         Result r = run("rescore", "--hyps", hyps.toString(), "--features", "acoustic,conf:linear", "--refs", refs.toString(),
-            "--method", method, "--length-weight", "-0.3", "--posterior-scale", "0.5", "--system-weight", "b=2",
+            "--method", method, "--length-weight", "-0.3", "--posterior-sharpness", "0.5", "--system-weight", "b=2",
             "--threads", Integer.toString(threads[k]), "--out", out.toString(), "--json", js.toString(),
             "--breakdown", dir.resolve("bd-" + k + ".csv").toString());
         assertThat(r.code).as(r.err).isZero();

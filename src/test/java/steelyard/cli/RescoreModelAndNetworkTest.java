@@ -66,7 +66,7 @@ class RescoreModelAndNetworkTest {
       Path out = dir.resolve("p" + threads + ".csv");
       Path js = dir.resolve("s" + threads + ".json");
       RescoreCommandTest.Result r = run("rescore", "--hyps", hyps.toString(), "--features", "acoustic", "--refs", refs.toString(), "--method", method,
-          "--posterior-scale", "0.2", "--lattice-length-weight", "0.1", "--threads", threads, "--out", out.toString(), "--json", js.toString());
+          "--posterior-sharpness", "0.2", "--lattice-length-weight", "0.1", "--threads", threads, "--out", out.toString(), "--json", js.toString());
       assertThat(r.code()).as(r.err()).isZero();
       if (first == null) {
         first = Files.readAllBytes(out);

@@ -71,7 +71,7 @@ class BadModelFilesTest {
     CommandLine cl = Main.commandLine();
     cl.setErr(new PrintWriter(err));
     cl.setOut(new PrintWriter(out));
-    int code = cl.execute("lm", "info", "--lm", file.toString());
+    int code = cl.execute("lm", "describe", "--lm", file.toString());
     assertThat(code).isEqualTo(Main.BAD_INPUT);
     String prefix = line > 0 ? file + ":" + line + ":" : file + ": ";
     assertThat(err.toString()).startsWith("steelyard: " + prefix).contains(problem).contains("; expected ");
@@ -89,7 +89,7 @@ class BadModelFilesTest {
   void failedConversionLeavesNoOutput(@TempDir Path dir) {
     Path out = dir.resolve("m.bin");
     int code = Main.commandLine().setErr(new PrintWriter(new StringWriter()))
-        .execute("lm", "convert", "--lm", TestFiles.resource("lm/bad/truncated-entries.arpa").toString(), "--out", out.toString());
+        .execute("lm", "copy", "--lm", TestFiles.resource("lm/bad/truncated-entries.arpa").toString(), "--out", out.toString());
     assertThat(code).isEqualTo(Main.BAD_INPUT);
     assertThat(dir.toFile().list()).isEmpty();
     assertThat(Files.exists(out)).isFalse();

@@ -48,8 +48,8 @@ class AtomicOutputTest {
             t -> List.of("score", "--hyps", hyps, "--refs", refs, "--pick", "oracle", "--json", t.toString()))),
         Arguments.of(new Case("rescore --out picks.csv", "picks.csv",
             t -> List.of("rescore", "--hyps", hyps, "--features", "acoustic", "--method", "nbest", "--out", t.toString()))),
-        Arguments.of(new Case("lm convert --out .bin", "model.bin",
-            t -> List.of("lm", "convert", "--lm", arpa, "--out", t.toString()))));
+        Arguments.of(new Case("lm copy --out .bin", "model.bin",
+            t -> List.of("lm", "copy", "--lm", arpa, "--out", t.toString()))));
   }
 
   @ParameterizedTest(name = "[{index}] {0}")
@@ -121,7 +121,7 @@ class AtomicOutputTest {
             "--hyps", Fixtures.valid("hyps.csv").toString(), "--refs", r.toString(), "--json", r.toString())),
         Arguments.of("rescore --out = --hyps", "hyps.csv", (Function<Path, List<String>>) h -> List.of("rescore", "--hyps", h.toString(),
             "--features", "acoustic", "--out", h.toString())),
-        Arguments.of("lm convert --out = --lm", "small.arpa", (Function<Path, List<String>>) m -> List.of("lm", "convert",
+        Arguments.of("lm copy --out = --lm", "small.arpa", (Function<Path, List<String>>) m -> List.of("lm", "copy",
             "--lm", m.toString(), "--out", m.toString())));
   }
 

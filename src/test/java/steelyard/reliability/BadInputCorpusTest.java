@@ -209,13 +209,13 @@ class BadInputCorpusTest {
     return b;
   }
 
-  /** A valid binary model converted from the committed ARPA by the real {@code lm convert}. */
+  /** A valid binary model converted from the committed ARPA by the real {@code lm copy}. */
   static byte[] goodBinary(Path dir) throws IOException {
     Path bin = dir.resolve("good.bin");
     if (!Files.exists(bin)) {
       Files.createDirectories(dir);
-      Cli.Result r = Cli.runBuilt("lm", "convert", "--lm", Fixtures.valid("small.arpa").toString(), "--out", bin.toString());
-      assertThat(r.exit()).as("lm convert of the valid model\n%s", r).isZero();
+      Cli.Result r = Cli.runBuilt("lm", "copy", "--lm", Fixtures.valid("small.arpa").toString(), "--out", bin.toString());
+      assertThat(r.exit()).as("lm copy of the valid model\n%s", r).isZero();
     }
     return Files.readAllBytes(bin);
   }

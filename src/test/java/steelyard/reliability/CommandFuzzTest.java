@@ -52,7 +52,7 @@ class CommandFuzzTest {
         Arguments.of(new Target("score, rules file", scaled(40), "valid/good.rules", ".rules",
             "score --hyps {valid}/hyps.csv --refs {valid}/refs.csv --rules {file} --resamples 20 --json {out}/s.json")),
         Arguments.of(new Target("lm train, corpus", scaled(40), "valid/corpus.txt", ".txt",
-            "lm train --text {file} --order 3 --out {out}/m.arpa --json {out}/s.json")),
+            "lm train --corpus {file} --order 3 --out {out}/m.arpa --json {out}/s.json")),
         Arguments.of(new Target("lm perplexity, text", scaled(40), "valid/corpus.txt", ".txt",
             "lm perplexity --lm {valid}/trigram-pruned.arpa --text {file} --json {out}/s.json")));
   }

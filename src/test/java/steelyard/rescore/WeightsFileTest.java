@@ -8,11 +8,13 @@ import java.io.StringReader;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Set;
+import org.junit.jupiter.api.Nested;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import java.util.stream.Stream;
 import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.MethodSource;
+import org.junit.jupiter.params.provider.ValueSource;
 import steelyard.io.InputException;
 import steelyard.text.Unit;
 
@@ -105,5 +107,55 @@ class WeightsFileTest {
     assertThatThrownBy(() -> read("{\"methods\":{}}", "acoustic"))
         .isInstanceOf(InputException.class)
         .hasMessageContaining("missing \"format\"");
+  }
+
+  @Nested
+  class Versions {
+    @Test
+    void filesAreWrittenAsVersionTwoWithThePosteriorSharpness() {
+      String json = WeightsFile.toJson(full());
+      assertThat(json).contains("\"version\" : 2", "\"posterior_sharpness\" : 0.1").doesNotContain("posterior_scale");
+    }
+
+    @Test
+    void aVersionOneFileAsReleaseOneWroteItIsStillRead() throws IOException {
+      Path v1 = Path.of("src/test/resources/rescore/dockets-weights-version1.json");
+      assertThat(java.nio.file.Files.readString(v1)).contains("\"version\" : 1", "\"posterior_scale\" : 1.0");
+      WeightsSpec s = WeightsFile.read(v1, List.of("confidence"));
+      assertThat(s.posteriorScale).isEqualTo(1.0);
+      assertThat(s.latticeLmWeight).isEqualTo(0.3);
+      assertThat(s.latticeLengthWeight).isEqualTo(2.5);
+      assertThat(s.unit).isEqualTo(Unit.CHAR);
+      assertThat(WeightsFile.toJson(s)).as("saved again, it becomes version 2")
+          .contains("\"version\" : 2", "\"posterior_sharpness\" : 1.0").doesNotContain("posterior_scale");
+    }
+
+    @Test
+    void theVersionMayComeAfterTheKeyItDecides() throws IOException {
+      WeightsSpec s = read("{\"format\":\"steelyard-weights\",\"methods\":{\"nbest\":{\"posterior_scale\":0.25}},\"version\":1}");
+      assertThat(s.posteriorScale).isEqualTo(0.25);
+    }
+
+    // columns counted by hand: the value after "posterior_scale": starts at column 39, after "posterior_sharpness": at 43
+    static Stream<Arguments> misspelt() {
+      return Stream.of(
+          Arguments.of(2, "posterior_scale", "dev.weights.json:2:39: 'posterior_scale' in a version 2 file; expected \"posterior_sharpness\" (\"posterior_scale\" is the version 1 spelling)"),
+          Arguments.of(1, "posterior_sharpness", "dev.weights.json:2:43: 'posterior_sharpness' in a version 1 file; expected \"posterior_scale\" in version 1, or \"version\": 2 with \"posterior_sharpness\""));
+    }
+
+    @ParameterizedTest(name = "[{index}] version {0} with {1}")
+    @MethodSource("misspelt")
+    void eachVersionTakesOnlyItsOwnSpelling(int version, String key, String message) {
+      String json = "{\"format\":\"steelyard-weights\",\"version\":" + version + ",\n\"methods\":{\"nbest\":{\"" + key + "\":0.5}}}";
+      assertThatThrownBy(() -> read(json)).isInstanceOf(InputException.class).hasMessageStartingWith(message);
+    }
+
+    @ParameterizedTest(name = "[{index}] version {0}")
+    @ValueSource(ints = {0, 3})
+    void otherVersionsAreRefused(int version) {
+      assertThatThrownBy(() -> read("{\"format\":\"steelyard-weights\",\"version\":" + version + "}"))
+          .isInstanceOf(InputException.class)
+          .hasMessageContaining("unsupported version " + version + "; expected version 2 (version 1 is still read)");
+    }
   }
 }

@@ -100,7 +100,7 @@ public final class ArpaReader {
       b.unknownFloorLog10(unknownFloorLog10);
       if (warnings != null) {
         warnings.accept(file + ": no <unk> unigram (closed-vocabulary model); out-of-vocabulary tokens get log10 P = "
-            + unknownFloorLog10 + " (--unk-log10)");
+            + unknownFloorLog10 + " (--oov-log10-prob)");
       }
     }
     return b.build();

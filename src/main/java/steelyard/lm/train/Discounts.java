@@ -9,18 +9,18 @@ import java.util.Locale;
  * @param order       n-gram order (1-based)
  * @param countOfCounts n1 … n4: how many n-grams of this order have (adjusted) count 1, 2, 3, 4
  * @param values      modified Kneser-Ney: D1, D2, D3+; absolute discounting: D; Witten-Bell and add-k: empty
- * @param fallback    per value: true where the estimate was invalid and the documented default was used
+ * @param replaced    per value: true where the estimate was invalid and was replaced by the middle of its range
  */
-public record Discounts(int order, long[] countOfCounts, double[] values, boolean[] fallback) {
+public record Discounts(int order, long[] countOfCounts, double[] values, boolean[] replaced) {
   public Discounts {
     countOfCounts = countOfCounts.clone();
     values = values.clone();
-    fallback = fallback.clone();
+    replaced = replaced.clone();
   }
 
   @Override public long[] countOfCounts() { return countOfCounts.clone(); }
   @Override public double[] values() { return values.clone(); }
-  @Override public boolean[] fallback() { return fallback.clone(); }
+  @Override public boolean[] replaced() { return replaced.clone(); }
 
   /** The discount for an n-gram with (adjusted) count {@code c} ≥ 1. */
   double forCount(int c) {
@@ -41,12 +41,13 @@ public record Discounts(int order, long[] countOfCounts, double[] values, boolea
   /**
    * Modified Kneser-Ney discounts (Chen &amp; Goodman 1998, eq. 26): Y = n1/(n1+2·n2), D1 = 1 − 2Y·n2/n1,
    * D2 = 2 − 3Y·n3/n2, D3+ = 3 − 4Y·n4/n3. D_k is invalid when one of n1, n2, n_k, n_k+1 is zero or the
-   * value is not in (0, k]; it then falls back to {@link #defaultModifiedKneserNey()}[k−1] with a warning.
+   * value is not in (0, k]; it is then replaced by {@link #defaultModifiedKneserNey()}[k−1], k/2, the middle of
+   * that range, with a warning.
    */
   static Discounts modifiedKneserNey(int order, long[] n, List<String> warnings) {
     double y = (double) n[0] / (n[0] + 2.0 * n[1]);
     double[] d = new double[3];
-    boolean[] fb = new boolean[3];
+    boolean[] replaced = new boolean[3];
     for (int k = 1; k <= 3; k++) {
       double value = k - (k + 1) * y * n[k] / n[k - 1];
       boolean valid = n[0] > 0 && n[1] > 0 && n[k - 1] > 0 && n[k] > 0 && value > 0 && value <= k;
@@ -54,7 +55,7 @@ public record Discounts(int order, long[] countOfCounts, double[] values, boolea
         d[k - 1] = value;
       } else {
         d[k - 1] = DEFAULT_MKN[k - 1];
-        fb[k - 1] = true;
+        replaced[k - 1] = true;
         String name = "D" + (k == 3 ? "3+" : Integer.toString(k));
         String reason = zeroCount(n, k) != 0
             ? "undefined since n" + zeroCount(n, k) + " = 0"
@@ -64,12 +65,12 @@ public record Discounts(int order, long[] countOfCounts, double[] values, boolea
             order, name, n[0], n[1], n[2], n[3], reason, DEFAULT_MKN[k - 1]));
       }
     }
-    return new Discounts(order, n, d, fb);
+    return new Discounts(order, n, d, replaced);
   }
 
   /**
    * Absolute discounting (Ney, Essen &amp; Kneser 1994): D = n1/(n1 + 2·n2); invalid when n1 = 0 or the value
-   * is not in (0, 1]; then {@link #DEFAULT_ABS} with a warning.
+   * is not in (0, 1]; then {@link #DEFAULT_ABS}, the middle of that range, with a warning.
    */
   static Discounts absolute(int order, long[] n, List<String> warnings) {
     double value = (double) n[0] / (n[0] + 2.0 * n[1]);
@@ -89,12 +90,12 @@ public record Discounts(int order, long[] countOfCounts, double[] values, boolea
 
   private static final double[] DEFAULT_MKN = {0.5, 1.0, 1.5};
 
-  /** Defaults for invalid modified Kneser-Ney discounts: D1 = 0.5, D2 = 1.0, D3+ = 1.5 (half of the maximum k). */
+  /** Replacements for invalid modified Kneser-Ney discounts: D1 = 0.5, D2 = 1.0, D3+ = 1.5, the middle k/2 of each valid range (0, k]. */
   public static double[] defaultModifiedKneserNey() {
     return DEFAULT_MKN.clone();
   }
 
-  /** Default for an invalid absolute discount: 0.5. */
+  /** Replacement for an invalid absolute discount: 0.5, the middle of the valid range (0, 1]. */
   public static final double DEFAULT_ABS = 0.5;
 
   /** The first of n1, n2, n_k, n_k+1 that is zero (its index 1 … 4), or 0 when none is. */

@@ -12,13 +12,13 @@ import steelyard.lm.BackoffModel;
  * {@code P(w|h) = α(h w) + γ(h)·P(w|h')} (h' = h without its first token, the unigram level interpolating
  * with the uniform 1/|V| over the vocabulary without {@code <s>}), and for every history its interpolation
  * weight γ(h), which is then exactly its back-off weight: a history never seen in training backs off with
- * weight 1, which is what interpolation with zero counts gives. When cut-offs drop n-grams, the back-off
+ * weight 1, which is what interpolation with zero counts gives. When minimum counts drop n-grams, the back-off
  * weights are recomputed so that every context still sums to 1:
  * {@code bow(h) = (1 − Σ_listed P(w|h)) / (1 − Σ_listed P'(w|h'))}, P' being the pruned lower-order model.
  *
  * <p>Working storage: per entry an {@code int} adjusted count and a {@code double} probability (12 bytes),
  * per history a {@code long} total, a {@code double} discounted mass and a {@code double} weight (24 bytes),
- * a keep flag per entry when there are cut-offs.
+ * a keep flag per entry when minimum counts drop n-grams.
  */
 final class Estimator {
   private final NgramCounts counts;
@@ -57,7 +57,7 @@ final class Estimator {
     for (int k = 1; k <= order; k++) discounts.add(discountsOf(k));
     interpolate();
     adjusted = null;
-    applyCutoffs();
+    applyMinCounts();
   }
 
   // ---- counts ----
@@ -201,9 +201,9 @@ final class Estimator {
     return rootGamma / vocabularyWithoutStart;
   }
 
-  // ---- cut-offs ----
+  // ---- minimum counts ----
 
-  private void applyCutoffs() {
+  private void applyMinCounts() {
     keep = new boolean[order + 1][];
     bow = new double[order + 1][];
     boolean dropped = false;
@@ -212,9 +212,9 @@ final class Estimator {
       int n = counts.size(k);
       boolean[] kk = new boolean[n];
       int[] raw = counts.counts(k);
-      int cut = options.cutoff(k);
+      int min = options.minCount(k);
       for (int e = 0; e < n; e++) {
-        kk[e] = k == 1 || raw[e] > cut || (keptChild != null && keptChild[e]);
+        kk[e] = k == 1 || raw[e] >= min || (keptChild != null && keptChild[e]);
         if (!kk[e]) dropped = true;
       }
       keep[k] = kk;
@@ -272,7 +272,7 @@ final class Estimator {
    * Adds every listed n-gram to {@code builder}, whose token ids must equal the counting ids. N-grams go in
    * depth-first trie order (each unigram, then its listed extensions, …): with the trie numbering of
    * {@link NgramCounts#freeze()} this reads every array front to back. A kept entry's parent is always kept
-   * (see {@link #applyCutoffs()}) and is added just before its subtree, so the builder entry of every
+   * (see {@link #applyMinCounts()}) and is added just before its subtree, so the builder entry of every
    * prefix is on the walk's stack ({@code entry[k]}) and each n-gram costs one
    * {@link BackoffModel.Builder#addChild} (one hash-table put). Call once: it converts the working arrays to
    * log10 in place and releases the counts.

@@ -18,6 +18,22 @@ public enum Smoothing {
     return name().toLowerCase(Locale.ROOT);
   }
 
+  /** The method's name in words, e.g. {@code interpolated modified Kneser-Ney}. */
+  public String title() {
+    return switch (this) {
+      case MKN -> "interpolated modified Kneser-Ney";
+      case WB -> "interpolated Witten-Bell";
+      case ABS -> "interpolated absolute discounting";
+      case ADDK -> "add-k";
+    };
+  }
+
+  /** The method whose {@link #key()} is {@code key}, or null. */
+  public static Smoothing ofKey(String key) {
+    for (Smoothing s : values()) if (s.key().equals(key)) return s;
+    return null;
+  }
+
   /** Whether the result is an exact back-off model that can be written as an ARPA or binary file. */
   public boolean hasBackoffForm() {
     return this != ADDK;

@@ -1,7 +1,6 @@
 package steelyard.lm.train;
 
 import it.unimi.dsi.fastutil.ints.IntArrayList;
-import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
@@ -9,6 +8,7 @@ import java.util.Objects;
 import java.util.function.LongConsumer;
 import steelyard.io.InputException;
 import steelyard.lm.BackoffModel;
+import steelyard.lm.ModelMetadata;
 import steelyard.text.NormalisationOptions;
 import steelyard.text.Vocabulary;
 
@@ -190,7 +190,7 @@ public final class Trainer {
     b.metadata("steelyard.normalisation.rules=" + (n.rulesFile() == null ? "none" : n.rulesFile().getFileName()));
     b.metadata("steelyard.vocab_min_count=" + options.vocabMinCount());
     b.metadata("steelyard.max_vocab=" + options.maxVocab());
-    b.metadata("steelyard.cutoffs=" + joined(options.cutoffs()));
+    for (int k = 1; k <= options.order(); k++) b.metadata(ModelMetadata.MIN_COUNT + k + "=" + options.minCount(k));
     if (options.smoothing() == Smoothing.ADDK) b.metadata("steelyard.add_k=" + options.addK());
     for (Discounts d : discounts) {
       if (d.values().length > 0) b.metadata("steelyard.discounts." + d.order() + "=" + d.formatted());
@@ -199,13 +199,6 @@ public final class Trainer {
     b.metadata("steelyard.corpus.tokens=" + stats[2]);
     b.metadata("steelyard.corpus.unk_tokens=" + stats[3]);
     for (int i = 0; i < warnings.size(); i++) b.metadata("steelyard.warning." + (i + 1) + "=" + warnings.get(i));
-  }
-
-  private static String joined(int[] values) {
-    if (values.length == 0) return "none";
-    List<String> parts = new ArrayList<>();
-    for (int v : values) parts.add(Integer.toString(v));
-    return String.join(",", parts);
   }
 
   private static double seconds(long startNanos) {

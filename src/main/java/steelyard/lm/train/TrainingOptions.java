@@ -14,14 +14,15 @@ import steelyard.text.Unit;
  * @param smoothing      estimation method
  * @param vocabMinCount  words seen fewer than this many times become {@code <unk>} (0 or 1: keep all)
  * @param maxVocab       keep at most this many words, the most frequent (ties: lexicographic order); 0: no limit
- * @param cutoffs        per-order count cut-offs, index 0 = unigrams (must be 0); an n-gram of order k whose raw
- *                       count is ≤ cutoffs[k−1] is not listed, unless it is the context of a listed longer
- *                       n-gram; missing trailing orders repeat the last value; empty: no cut-offs
+ * @param minCounts      per-order minimum counts, index k−1 = order k: an n-gram of order k is listed only when
+ *                       its raw count is at least {@code minCounts[k−1]}, or when it is the context of a listed
+ *                       longer n-gram. Every value is ≥ 1 and the unigram value is 1 (words are limited through
+ *                       the vocabulary); orders beyond the array keep every n-gram (1); empty: keep everything
  * @param addK           the k of add-k smoothing (&gt; 0); ignored by the other methods
  */
 public record TrainingOptions(
     int order, Unit unit, NormalisationOptions normalisation, Smoothing smoothing,
-    int vocabMinCount, int maxVocab, int[] cutoffs, double addK) {
+    int vocabMinCount, int maxVocab, int[] minCounts, double addK) {
 
   public TrainingOptions {
     if (order < 1 || order > 6) throw new IllegalArgumentException("order must be 1..6: " + order);
@@ -30,10 +31,12 @@ public record TrainingOptions(
     Objects.requireNonNull(smoothing, "smoothing");
     if (vocabMinCount < 0) throw new IllegalArgumentException("vocabMinCount must be >= 0");
     if (maxVocab < 0) throw new IllegalArgumentException("maxVocab must be >= 0");
-    cutoffs = cutoffs == null ? new int[0] : cutoffs.clone();
-    for (int c : cutoffs) if (c < 0) throw new IllegalArgumentException("cut-offs must be >= 0");
-    if (cutoffs.length > 0 && cutoffs[0] != 0)
-      throw new IllegalArgumentException("the unigram cut-off must be 0 (use a vocabulary limit instead)");
+    minCounts = minCounts == null ? new int[0] : minCounts.clone();
+    for (int c : minCounts) if (c < 1) throw new IllegalArgumentException("minimum counts must be >= 1: " + Arrays.toString(minCounts));
+    if (minCounts.length > 0 && minCounts[0] != 1)
+      throw new IllegalArgumentException("the unigram minimum count must be 1 (use a vocabulary limit instead): " + minCounts[0]);
+    if (minCounts.length > order)
+      throw new IllegalArgumentException("minimum counts for " + minCounts.length + " orders in a model of order " + order);
     if (!(addK > 0) || Double.isInfinite(addK)) throw new IllegalArgumentException("addK must be > 0: " + addK);
   }
 
@@ -42,28 +45,27 @@ public record TrainingOptions(
     return new TrainingOptions(order, Unit.WORD, NormalisationOptions.EXACT, smoothing, 0, 0, new int[0], 1.0);
   }
 
-  public TrainingOptions withCutoffs(int... values) {
-    return new TrainingOptions(order, unit, normalisation, smoothing, vocabMinCount, maxVocab, values, addK);
+  /** These options, listing n-grams of order {@code k} (2 … order) only when seen at least {@code count} times. */
+  public TrainingOptions withMinCount(int k, int count) {
+    if (k < 2 || k > order) throw new IllegalArgumentException("order " + k + " is not in 2.." + order);
+    int[] m = new int[Math.max(k, minCounts.length)];
+    Arrays.fill(m, 1);
+    System.arraycopy(minCounts, 0, m, 0, minCounts.length);
+    m[k - 1] = count;
+    return new TrainingOptions(order, unit, normalisation, smoothing, vocabMinCount, maxVocab, m, addK);
   }
 
   public TrainingOptions withVocabulary(int minCount, int max) {
-    return new TrainingOptions(order, unit, normalisation, smoothing, minCount, max, cutoffs, addK);
+    return new TrainingOptions(order, unit, normalisation, smoothing, minCount, max, minCounts, addK);
   }
 
   public TrainingOptions withAddK(double k) {
-    return new TrainingOptions(order, unit, normalisation, smoothing, vocabMinCount, maxVocab, cutoffs, k);
+    return new TrainingOptions(order, unit, normalisation, smoothing, vocabMinCount, maxVocab, minCounts, k);
   }
 
-  /** The cut-off of order {@code k} (1-based). */
-  public int cutoff(int k) {
-    if (cutoffs.length == 0) return 0;
-    return cutoffs[Math.min(k, cutoffs.length) - 1];
-  }
-
-  /** Whether any cut-off is positive. */
-  public boolean hasCutoffs() {
-    for (int c : cutoffs) if (c > 0) return true;
-    return false;
+  /** The minimum count of order {@code k} (1-based): n-grams seen fewer times are not listed; 1 keeps all. */
+  public int minCount(int k) {
+    return k <= minCounts.length ? minCounts[k - 1] : 1;
   }
 
   /** Whether the vocabulary is limited (needs a first pass over the corpus). */
@@ -71,23 +73,23 @@ public record TrainingOptions(
     return vocabMinCount > 1 || maxVocab > 0;
   }
 
-  @Override public int[] cutoffs() { return cutoffs.clone(); }
+  @Override public int[] minCounts() { return minCounts.clone(); }
 
   @Override
   public boolean equals(Object o) {
     return o instanceof TrainingOptions t && order == t.order && unit == t.unit
         && normalisation.equals(t.normalisation) && smoothing == t.smoothing && vocabMinCount == t.vocabMinCount
-        && maxVocab == t.maxVocab && Arrays.equals(cutoffs, t.cutoffs) && Double.compare(addK, t.addK) == 0;
+        && maxVocab == t.maxVocab && Arrays.equals(minCounts, t.minCounts) && Double.compare(addK, t.addK) == 0;
   }
 
   @Override
   public int hashCode() {
-    return Objects.hash(order, unit, normalisation, smoothing, vocabMinCount, maxVocab, Arrays.hashCode(cutoffs), addK);
+    return Objects.hash(order, unit, normalisation, smoothing, vocabMinCount, maxVocab, Arrays.hashCode(minCounts), addK);
   }
 
   @Override
   public String toString() {
     return "TrainingOptions[order=" + order + ", unit=" + unit + ", smoothing=" + smoothing + ", vocabMinCount="
-        + vocabMinCount + ", maxVocab=" + maxVocab + ", cutoffs=" + Arrays.toString(cutoffs) + ", addK=" + addK + "]";
+        + vocabMinCount + ", maxVocab=" + maxVocab + ", minCounts=" + Arrays.toString(minCounts) + ", addK=" + addK + "]";
   }
 }

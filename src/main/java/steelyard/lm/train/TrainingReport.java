@@ -12,8 +12,8 @@ import java.util.List;
  * @param tokens         tokens read, without sentence markers
  * @param unknownTokens  tokens mapped to {@code <unk>} by the vocabulary limits (or written as {@code <unk>})
  * @param vocabularySize token ids of the model, including {@code <s>}, {@code </s>} and {@code <unk>}
- * @param distinctNgrams distinct n-grams counted, per order (index 0 = unigrams), before cut-offs
- * @param listedNgrams   n-grams listed in the model, per order, after cut-offs (unigrams include an
+ * @param distinctNgrams distinct n-grams counted, per order (index 0 = unigrams), before the minimum counts
+ * @param listedNgrams   n-grams listed in the model, per order, after the minimum counts (unigrams include an
  *                       unseen {@code <unk>})
  * @param discounts      per order, with their count-of-counts
  * @param warnings       invalid discounts replaced by defaults and other things the user should know

@@ -1,6 +1,5 @@
 package steelyard.report.charts;
 
-import java.awt.BasicStroke;
 import java.awt.Color;
 import java.awt.Font;
 import java.awt.Stroke;
@@ -111,9 +110,5 @@ final class ChartStyle {
   /** A percentage for labels: two decimals and a percent sign. */
   static String percent(double v) {
     return String.format(Locale.ROOT, "%.2f %%", v);
-  }
-
-  static BasicStroke thin() {
-    return new BasicStroke(1.0f);
   }
 }

@@ -255,20 +255,25 @@ public final class Charts {
     axis.setRange(lo, hi);
   }
 
+  // Crossing lines through the chosen point and an arrow whose label points towards the middle of the plot.
   private static void markChosen(XYPlot plot, double x, double y) {
     if (Double.isNaN(x) || Double.isNaN(y)) return;
     ChartStyle.domainMarker(plot, x, null, Palette.INK, Palette.DASH_DOT);
     ChartStyle.rangeMarker(plot, y, null, Palette.INK, Palette.DASH_DOT);
+    boolean right = x > plot.getDomainAxis().getRange().getCentralValue();
+    boolean top = y > plot.getRangeAxis().getRange().getCentralValue();
+    // Java2D angles: 0 points right, positive turns clockwise (y grows downwards).
+    double angle = Math.atan2(top ? 1 : -1, right ? -1 : 1);
     XYPointerAnnotation a = new XYPointerAnnotation(
-        "chosen (" + ChartStyle.number(x) + ", " + ChartStyle.number(y) + ")", x, y, -Math.PI / 4);
+        "chosen (" + ChartStyle.number(x) + ", " + ChartStyle.number(y) + ")", x, y, angle);
     a.setFont(new Font(ChartStyle.FAMILY, Font.BOLD, 11));
     a.setPaint(Palette.INK);
     a.setArrowPaint(Palette.INK);
     a.setArrowStroke(new java.awt.BasicStroke(1.6f));
-    a.setBackgroundPaint(new Color(255, 255, 255, 230));
+    a.setBackgroundPaint(new Color(255, 255, 255, 235));
     a.setOutlineVisible(true);
     a.setOutlinePaint(Palette.INK);
-    a.setTextAnchor(TextAnchor.BOTTOM_LEFT);
+    a.setTextAnchor(top ? (right ? TextAnchor.TOP_RIGHT : TextAnchor.TOP_LEFT) : (right ? TextAnchor.BOTTOM_RIGHT : TextAnchor.BOTTOM_LEFT));
     a.setBaseRadius(34);
     a.setTipRadius(3);
     plot.addAnnotation(a);

@@ -36,11 +36,11 @@ class ArpaRoundTripNormalisationTest {
 
   @ParameterizedTest(name = "[{index}] {arguments}")
   @MethodSource("cases")
-  void theModelReadBackFromArpaStillNormalises(Smoothing smoothing, int order, boolean cutoffs, long seed) {
+  void theModelReadBackFromArpaStillNormalises(Smoothing smoothing, int order, boolean minCounts, long seed) {
     SplittableRandom random = new SplittableRandom(seed);
     List<List<String>> corpus = TrainTestSupport.randomCorpus(random, 80, 30, 10);
     TrainingOptions options = TrainingOptions.of(order, smoothing);
-    if (cutoffs) options = options.withCutoffs(0, 1, 1);
+    if (minCounts) options = TrainTestSupport.minCounts(options, 2, 2, 2);
     BackoffModel trained = new Trainer(options).train(SentenceSource.of(corpus)).backoffModel();
     Path file = dir.resolve("m-" + seed + ".arpa");
     ModelFiles.save(trained, file);

@@ -59,15 +59,15 @@ class KneserNeyByHandTest {
     assertThat(d.values()[0]).isCloseTo(1.0 / 3, within(1e-12));
     assertThat(d.values()[1]).isCloseTo(0.5, within(1e-12));
     assertThat(d.values()[2]).isCloseTo(23.0 / 9, within(1e-12));
-    assertThat(d.fallback()).containsExactly(false, false, false);
+    assertThat(d.replaced()).containsExactly(false, false, false);
   }
 
   @Test
-  void unigramLevelUsesContinuationCountsAndFallsBackWhenTheyGiveNoDiscount() {
+  void unigramLevelUsesContinuationCountsAndReplacesDiscountsTheyCannotGive() {
     Discounts d = trained.report().discounts().get(0);
     assertThat(d.countOfCounts()).containsExactly(0, 3, 1, 0);
     assertThat(d.values()).containsExactly(Discounts.defaultModifiedKneserNey());
-    assertThat(d.fallback()).containsExactly(true, true, true);
+    assertThat(d.replaced()).containsExactly(true, true, true);
     assertThat(trained.report().warnings()).hasSize(3).allMatch(w -> w.startsWith("order 1: discount"));
   }
 

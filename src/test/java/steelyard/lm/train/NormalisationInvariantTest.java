@@ -15,7 +15,7 @@ import steelyard.lm.LanguageModel;
 
 /**
  * Mathematical invariant: in every context, seen or unseen, the probabilities of all vocabulary words plus
- * {@code </s>} and {@code <unk>} (not {@code <s>}) sum to 1 — with and without cut-offs and vocabulary limits.
+ * {@code </s>} and {@code <unk>} (not {@code <s>}) sum to 1 — with and without minimum counts and vocabulary limits.
  */
 class NormalisationInvariantTest {
 
@@ -25,7 +25,7 @@ class NormalisationInvariantTest {
     for (Smoothing s : Smoothing.values()) {
       for (int order = 1; order <= 6; order++) {
         out.add(Arguments.of(s, order, "none", seed++));
-        if (s.hasBackoffForm() && order > 1) out.add(Arguments.of(s, order, "cutoffs", seed++));
+        if (s.hasBackoffForm() && order > 1) out.add(Arguments.of(s, order, "min-counts", seed++));
         out.add(Arguments.of(s, order, "vocabulary", seed++));
       }
     }
@@ -35,7 +35,7 @@ class NormalisationInvariantTest {
   static TrainingOptions options(Smoothing s, int order, String variant) {
     TrainingOptions o = TrainingOptions.of(order, s).withAddK(0.3);
     return switch (variant) {
-      case "cutoffs" -> o.withCutoffs(0, 1, 2, 1);
+      case "min-counts" -> TrainTestSupport.minCounts(o, 2, 3, 2, 2, 2);
       case "vocabulary" -> o.withVocabulary(3, 25);
       default -> o;
     };
@@ -63,7 +63,7 @@ class NormalisationInvariantTest {
     if (lm instanceof BackoffModel b) {
       assertThat(b.hasUnknownUnigram()).as("<unk> is listed, seed %d", seed).isTrue();
     }
-    if (variant.equals("cutoffs")) listedProbabilitiesAreThoseOfTheUncutModel((BackoffModel) lm, corpus, smoothing, order, seed);
+    if (variant.equals("min-counts")) listedProbabilitiesAreThoseOfTheUncutModel((BackoffModel) lm, corpus, smoothing, order, seed);
   }
 
   /**
@@ -85,6 +85,6 @@ class NormalisationInvariantTest {
       }
       dropped += full.ngramCount(k) - cut.ngramCount(k);
     }
-    assertThat(dropped).as("the cut-offs dropped n-grams, seed %d", seed).isPositive();
+    assertThat(dropped).as("the minimum counts dropped n-grams, seed %d", seed).isPositive();
   }
 }

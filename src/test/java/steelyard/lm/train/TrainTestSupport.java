@@ -68,4 +68,10 @@ final class TrainTestSupport {
     for (String w : predicted(lm)) total += prob(lm, context, w);
     return total;
   }
+
+  /** {@code o} with minimum counts {@code fromOrder2[0]} for order 2, {@code [1]} for order 3, …, up to its order. */
+  static TrainingOptions minCounts(TrainingOptions o, int... fromOrder2) {
+    for (int k = 2; k <= o.order() && k - 2 < fromOrder2.length; k++) o = o.withMinCount(k, fromOrder2[k - 2]);
+    return o;
+  }
 }

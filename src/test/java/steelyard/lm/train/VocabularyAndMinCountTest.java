@@ -10,7 +10,7 @@ import org.junit.jupiter.api.Test;
 import steelyard.io.InputException;
 import steelyard.lm.BackoffModel;
 
-class VocabularyAndCutoffTest {
+class VocabularyAndMinCountTest {
   // counts: a 7, b 4, c 2, d 1, e 1; </s> 5; 15 tokens
   static final List<List<String>> CORPUS = TrainTestSupport.corpus(
       "a b a", "a b c", "a b a d", "b a c", "a e");
@@ -53,11 +53,11 @@ class VocabularyAndCutoffTest {
   }
 
   @Nested
-  class Cutoffs {
+  class MinimumCounts {
     @Test
-    void bigramsAtOrBelowTheCutoffAreNotListedAndTheModelStillNormalises() {
+    void bigramsSeenFewerTimesThanTheMinimumAreNotListedAndTheModelStillNormalises() {
       TrainedModel full = new Trainer(TrainingOptions.of(2, Smoothing.MKN)).train(SentenceSource.of(CORPUS));
-      TrainedModel cut = new Trainer(TrainingOptions.of(2, Smoothing.MKN).withCutoffs(0, 1))
+      TrainedModel cut = new Trainer(TrainingOptions.of(2, Smoothing.MKN).withMinCount(2, 2))
           .train(SentenceSource.of(CORPUS));
       BackoffModel lm = cut.backoffModel();
       int[] ab = {lm.wordId("a"), lm.wordId("b")};
@@ -75,8 +75,8 @@ class VocabularyAndCutoffTest {
 
     @Test
     void aContextOfAKeptLongerNgramStaysListed() {
-      // bigram cut-off 5 would drop every bigram; trigram cut-off 0 keeps them all, so their contexts stay
-      BackoffModel lm = new Trainer(TrainingOptions.of(3, Smoothing.WB).withCutoffs(0, 5, 0))
+      // a bigram minimum of 6 would drop every bigram; trigrams keep them all, so their contexts stay
+      BackoffModel lm = new Trainer(TrainingOptions.of(3, Smoothing.WB).withMinCount(2, 6))
           .train(SentenceSource.of(CORPUS)).backoffModel();
       int[] ab = {lm.wordId("a"), lm.wordId("b")};
       assertThat(lm.entryIndex(ab)).isGreaterThanOrEqualTo(0);
@@ -85,9 +85,18 @@ class VocabularyAndCutoffTest {
     }
 
     @Test
-    void aUnigramCutoffIsRefused() {
-      assertThatThrownBy(() -> TrainingOptions.of(2, Smoothing.MKN).withCutoffs(1, 1))
-          .isInstanceOf(IllegalArgumentException.class).hasMessageContaining("unigram cut-off");
+    void aUnigramMinimumCountIsRefused() {
+      assertThatThrownBy(() -> TrainingOptions.of(2, Smoothing.MKN).withMinCount(1, 2))
+          .isInstanceOf(IllegalArgumentException.class).hasMessageContaining("order 1");
+      assertThatThrownBy(() -> new TrainingOptions(2, steelyard.text.Unit.WORD, steelyard.text.NormalisationOptions.EXACT,
+          Smoothing.MKN, 0, 0, new int[] {2, 2}, 1.0))
+          .isInstanceOf(IllegalArgumentException.class).hasMessageContaining("unigram minimum count");
+    }
+
+    @Test
+    void ordersNotNamedKeepEveryNgram() {
+      TrainingOptions o = TrainingOptions.of(4, Smoothing.MKN).withMinCount(3, 2);
+      assertThat(new int[] {o.minCount(1), o.minCount(2), o.minCount(3), o.minCount(4)}).containsExactly(1, 1, 2, 1);
     }
   }
 
