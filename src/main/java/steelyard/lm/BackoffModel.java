@@ -132,6 +132,16 @@ public final class BackoffModel implements LanguageModel {
     return unknownFloorLog10 + bow;
   }
 
+  /** The order of the n-gram that decided {@link #log10Score}, by the same back-off walk (see {@link LanguageModel}). */
+  @Override
+  public int matchedOrder(LmState in, int w) {
+    for (int len = in.length; len >= 0; len--) {
+      int e = find(len, len == 0 ? -1 : in.contextIndex[len - 1], w);
+      if (e >= 0 && !Double.isNaN(log10Prob[len][e])) return len + 1;
+    }
+    return w != unk && hasUnknownUnigram() ? 1 : 0;
+  }
+
   /**
    * Sets {@code out} to the state after {@code w}: the longest suffix of (history, w) of at most order−1
    * tokens that is listed as an entry. {@code in} and {@code out} may be the same object.

@@ -136,6 +136,16 @@ public final class CompactModel implements LanguageModel {
     return unknownLog10(w) + bow;
   }
 
+  /** The order of the n-gram that decided {@link #log10Score}, by the same back-off walk (see {@link LanguageModel}). */
+  @Override
+  public int matchedOrder(LmState in, int w) {
+    for (int len = in.length; len >= 0; len--) {
+      int e = find(len, len == 0 ? -1 : in.contextIndex[len - 1], w);
+      if (e >= 0 && !Float.isNaN(prob(len, e))) return len + 1;
+    }
+    return w != unk && unkListed ? 1 : 0;
+  }
+
   /**
    * One bottom-up pass, valid when every entry's suffix is an entry: the found entries then form a chain
    * without gaps, a miss at one order means misses at all higher ones, and a found bigram implies its

@@ -57,6 +57,19 @@ public interface LanguageModel {
    */
   double score(LmState in, int word, LmState out);
 
+  /**
+   * The length of the n-gram whose own listed probability decided {@link #score}{@code (in, word, …)}: k when the
+   * k-gram made of the last k−1 history tokens of {@code in} and {@code word} is listed and every longer one was
+   * backed off from (each adding its history's back-off weight); 1 for a unigram, including a token scored as the
+   * {@code <unk>} unigram; 0 when no n-gram decided (the unknown-token floor of a closed-vocabulary model). Does
+   * not change {@code in}. A model without back-off structure may not support it.
+   *
+   * @throws UnsupportedOperationException when this model cannot say which n-gram decided a score
+   */
+  default int matchedOrder(LmState in, int word) {
+    throw new UnsupportedOperationException(getClass().getSimpleName() + " does not report matched n-gram orders");
+  }
+
   /** ln P of a whole tokenised sentence including {@code </s>}, starting after {@code <s>}. */
   default double sentenceLogProb(List<String> tokens) {
     LmState s = newState();

@@ -121,6 +121,28 @@ public final class MixtureModel implements LanguageModel {
   }
 
   private double componentLogProb(int i, LmState s, LmState in, int word) {
+    replay(i, s, in);
+    return components.get(i).score(s, componentIds[i][word], s);
+  }
+
+  /**
+   * The longest n-gram that any component with a non-zero weight listed for {@code word} after this history
+   * (each component backs off on its own, so a mixture has no single back-off path).
+   */
+  @Override
+  public int matchedOrder(LmState in, int word) {
+    LmState[] states = scratch.get();
+    int best = 0;
+    for (int i = 0; i < components.size(); i++) {
+      if (weights[i] == 0) continue;
+      replay(i, states[i], in);
+      best = Math.max(best, components.get(i).matchedOrder(states[i], componentIds[i][word]));
+    }
+    return best;
+  }
+
+  /** Sets {@code s} to component {@code i}'s state after the (at most its order − 1) last tokens of {@code in}. */
+  private void replay(int i, LmState s, LmState in) {
     LanguageModel c = components.get(i);
     int[] map = componentIds[i];
     s.length = 0;
@@ -131,7 +153,6 @@ public final class MixtureModel implements LanguageModel {
       if (h == sentenceStartId() && j == skip && j == 0) c.beginSentence(s);
       else c.score(s, map[h], s);
     }
-    return c.score(s, map[word], s);
   }
 
   private void shift(LmState in, int word, LmState out) {

@@ -31,6 +31,11 @@ public final class LogLinear {
     return new LogLinear(w.featureWeights(featureNames), w.lmWeight(), w.oovWeight(), w.lengthWeight());
   }
 
+  /** λ, the weight of the LM's ln P (the direction along which the audit finds flip weights). */
+  public double lmWeight() {
+    return lmWeight;
+  }
+
   /** Number of terms: F features, then LM, OOV, length. */
   public int termCount() {
     return featureWeights.length + 3;

@@ -1,6 +1,5 @@
 package steelyard.bench;
 
-import java.io.BufferedWriter;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -62,17 +61,7 @@ public class RescoreBenchmark {
     hyps = dir.resolve("hyps.csv");
     model = dir.resolve("lm3.arpa");
     picks = dir.resolve("picks.csv");
-    Path corpus = dir.resolve("corpus.txt");
-    // the LM corpus: rank-1 sentences of another seed of the same generator (its rank 1 is the clean sentence)
-    Path source = dir.resolve("corpus-source.csv");
-    SyntheticHypotheses.write(source, 50_000, 1, 7L);
-    try (BufferedWriter w = Files.newBufferedWriter(corpus);
-        HypothesesReader r = HypothesesReader.open(source, ImportOptions.strict(List.of()))) {
-      while (r.hasNext()) w.write(r.next().first().text() + "\n");
-    }
-    Files.delete(source);
-    int code = Main.run("lm", "train", "--corpus", corpus.toString(), "--order", "3", "--out", model.toString());
-    if (code != 0) throw new IllegalStateException("lm train failed: " + code);
+    SyntheticModel.train(dir, model);
     SyntheticHypotheses.write(hyps, (long) utterances * perUtterance, perUtterance, 42L);
   }
 

@@ -54,18 +54,39 @@ final class AddKModel implements LanguageModel {
   }
 
   private double probability(LmState in, int word) {
+    int start = historyStart(in);
+    if (start < 0) return 1.0 / vocabularyWithoutStart;
+    int len = in.length() - start;
+    int e = historyEntry(in, start);
+    long total = len == 0 ? rootTotal : childTotal[len][e];
+    int child = counts.find(len, e, word);
+    long c = child < 0 ? 0 : counts.counts(len + 1)[child];
+    return (c + k) / (total + k * vocabularyWithoutStart);
+  }
+
+  /** Add-k has no back-off: the order is that of the history suffix used, plus the word (0: the uniform floor). */
+  @Override
+  public int matchedOrder(LmState in, int word) {
+    int start = historyStart(in);
+    return start < 0 ? 0 : in.length() - start + 1;
+  }
+
+  /** Where the longest history suffix that occurred in training (with a non-zero child total) starts; −1: none. */
+  private int historyStart(LmState in) {
     for (int start = 0; start <= in.length(); start++) {
       int len = in.length() - start;
-      int e = -1;
-      for (int j = 0; j < len && (j == 0 || e >= 0); j++) e = counts.find(j, e, in.word(start + j));
+      int e = historyEntry(in, start);
       if (len > 0 && e < 0) continue;
-      long total = len == 0 ? rootTotal : childTotal[len][e];
-      if (total == 0) continue;
-      int child = counts.find(len, e, word);
-      long c = child < 0 ? 0 : counts.counts(len + 1)[child];
-      return (c + k) / (total + k * vocabularyWithoutStart);
+      if ((len == 0 ? rootTotal : childTotal[len][e]) > 0) return start;
     }
-    return 1.0 / vocabularyWithoutStart;
+    return -1;
+  }
+
+  /** Count entry of the history suffix from {@code start}, −1 when absent (−1 also for the empty suffix). */
+  private int historyEntry(LmState in, int start) {
+    int e = -1;
+    for (int j = 0; j < in.length() - start && (j == 0 || e >= 0); j++) e = counts.find(j, e, in.word(start + j));
+    return e;
   }
 
   @Override public int order() { return states.order(); }
