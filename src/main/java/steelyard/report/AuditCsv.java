@@ -12,9 +12,10 @@ import steelyard.audit.Overrule;
 import steelyard.audit.ScoreBreakdown;
 import steelyard.eval.TokenTally;
 import steelyard.io.AtomicOutput;
+import steelyard.io.CsvWriter;
 
 /**
- * The overrule audit as CSV, one row per overrule, through the project's {@link SpreadsheetCsv}: safe to open
+ * The overrule audit as CSV, one row per overrule, through the project's {@link CsvWriter}: safe to open
  * in a spreadsheet (a text cell starting with {@code =}, {@code +}, {@code -} or {@code @} gets a leading
  * apostrophe). Scores are natural log with {@value AuditJson#DIGITS} decimals; an empty cell is an unbounded
  * interval edge, a value that does not apply, or an undefined one. Columns are listed in the README's audit
@@ -30,7 +31,7 @@ public final class AuditCsv {
 
   /** Writes the header and one row per overrule to {@code out} (not closed). */
   public static void write(Writer out, AuditReport r, boolean spreadsheetSafe) throws IOException {
-    SpreadsheetCsv csv = new SpreadsheetCsv(out, spreadsheetSafe);
+    CsvWriter csv = new CsvWriter(out, spreadsheetSafe);
     csv.row(header(r.featureNames()));
     for (Overrule o : r.overrules()) csv.row(row(o, r.featureNames().size()));
     csv.flush();

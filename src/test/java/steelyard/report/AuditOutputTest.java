@@ -18,6 +18,7 @@ import steelyard.audit.ScoreBreakdown;
 import steelyard.audit.ScoreBreakdown.Kind;
 import steelyard.audit.Verdict;
 import steelyard.eval.TokenTally;
+import steelyard.io.JsonOutput;
 import steelyard.rescore.RescoreMethod;
 import steelyard.text.Unit;
 
