@@ -15,13 +15,11 @@ import steelyard.eval.MissingHypothesisPolicy;
 import steelyard.eval.PairedComparison;
 import steelyard.eval.Pick;
 import steelyard.eval.SystemFilter;
-import steelyard.io.FeatureSpec;
 import steelyard.io.HypothesesReader;
 import steelyard.io.ImportOptions;
 import steelyard.io.InputException;
 import steelyard.io.Reference;
 import steelyard.io.ReferencesReader;
-import steelyard.io.SkippedRow;
 import steelyard.report.CompareReport;
 import steelyard.io.JsonOutput;
 import steelyard.report.OutputPaths;
@@ -41,7 +39,7 @@ import steelyard.text.Unit;
       "The plain-text report goes to stdout (to stderr when --json is '-')."
     })
 public final class CompareCommand implements Callable<Integer> {
-  // The shared hypotheses mixin takes one --hyps; compare takes two, so its import options are declared here.
+  // The shared hypotheses mixin takes one --hyps; compare takes two, so it uses the import options alone.
   @Option(names = "--hyps", required = true, paramLabel = "FILE",
       description = "Hypotheses CSV of a system; give two (A, then B), or one together with --systems.")
   List<Path> hyps;
@@ -53,22 +51,13 @@ public final class CompareCommand implements Callable<Integer> {
   @Option(names = "--names", paramLabel = "A,B", split = ",", description = "Display names of the two systems (default A,B).")
   List<String> names;
 
-  @Option(names = "--features", paramLabel = "SPECS",
-      description = "Score columns to validate as numbers, comma-separated NAME[:ln|log10|cost|linear][:scale=S].")
-  String features;
-
-  @Option(names = "--primary-system", paramLabel = "NAME", description = "System that wins ties for rank 1 between systems within a file.")
-  String primarySystem;
-
-  @Option(names = "--max-bad-rows", paramLabel = "N", defaultValue = "0", description = "Skip at most N malformed rows per file, reporting each (default ${DEFAULT-VALUE}).")
-  int maxBadRows;
+  @Mixin ImportInput imports;
 
   @Mixin NormalisationInput normalisation;
   @Mixin RunInput run;
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
-  @Option(names = "--refs", required = true, paramLabel = "FILE", description = "References CSV (utt_id,text[,group]; .gz accepted).")
-  Path refs;
+  @Mixin ReferencesInput references;
 
   @Option(names = "--pick", paramLabel = "first|oracle", defaultValue = "first", description = "Hypothesis scored per utterance (default ${DEFAULT-VALUE}).")
   Pick pick;
@@ -81,11 +70,11 @@ public final class CompareCommand implements Callable<Integer> {
   @Option(names = "--resamples", paramLabel = "N", defaultValue = "1000", description = "Bootstrap resamples (default ${DEFAULT-VALUE}).")
   int resamples;
 
-  @Option(names = "--json", paramLabel = "FILE|-", description = "Write the JSON summary to FILE, or to stdout with '-'.")
-  Path json;
+  @Mixin JsonOutputOption json;
 
   @Override
   public Integer call() {
+    Path refs = references.require();
     if (systems == null && hyps.size() != 2)
       throw InputException.option("--hyps", "given " + hyps.size() + " time(s)", "two hypotheses files, A then B, or one file with --systems A,B");
     if (systems != null && (hyps.size() != 1 || systems.size() != 2 || systems.get(0).equals(systems.get(1))))
@@ -96,15 +85,14 @@ public final class CompareCommand implements Callable<Integer> {
       throw InputException.option("--names", "'" + String.join(",", display) + "' is not two distinct names", "two names such as baseline,tuned");
     ScoreCommand.checkOptions(pick, resamples, 0);
     LinkedHashMap<String, Path> outputs = new LinkedHashMap<>();
-    outputs.put("--json", json);
+    outputs.put("--json", json.file);
     List<Path> inputs = new ArrayList<>(hyps);
     inputs.add(refs);
     inputs.add(normalisation.rules);
     OutputPaths.refuseClashes(outputs, inputs);
 
     List<String> warnings = new ArrayList<>();
-    List<SkippedRow> skipped = new ArrayList<>();
-    ImportOptions options = importOptions(warnings, skipped);
+    ImportOptions options = imports.importOptions(spec.commandLine().getErr(), warnings::add);
     Normaliser normaliser = Normaliser.create(normalisation.options());
     Unit unit = normalisation.unit;
     LinkedHashMap<String, Reference> refMap = ReferencesReader.readAll(refs, ScoreCommand.withoutFeatures(options));
@@ -117,10 +105,10 @@ public final class CompareCommand implements Callable<Integer> {
     CompareReport.CompareRun report = new CompareReport.CompareRun(refs.toString(), unit, normaliser.describe(),
         new CompareReport.SystemRun(display.get(0), label(fileA, 0), a),
         new CompareReport.SystemRun(display.get(1), label(fileB, 1), b),
-        comparison, run.seed, skipped, warnings);
+        comparison, run.seed, imports.skipped, warnings);
 
-    if (json != null) JsonOutput.write(json, CompareReport.json(report), spec.commandLine().getOut());
-    ScoreCommand.printReport(spec, json, CompareReport.text(report));
+    json.write(CompareReport.json(report), spec.commandLine().getOut());
+    ScoreCommand.printReport(spec, json.file, CompareReport.text(report));
     return Main.OK;
   }
 
@@ -136,19 +124,5 @@ public final class CompareCommand implements Callable<Integer> {
         throw InputException.inFile(file, "--systems needs a 'system' column, which this file does not have", "a column named system");
       return scorer.score(refMap, system == null ? reader : new SystemFilter(reader, system));
     }
-  }
-
-  private ImportOptions importOptions(List<String> warnings, List<SkippedRow> skipped) {
-    List<FeatureSpec> specs = FeatureSpec.parseList(features);
-    return new ImportOptions(specs, primarySystem, maxBadRows,
-        w -> {
-          warnings.add(w);
-          RescoreSupport.warn(spec.commandLine().getErr(), w);
-        },
-        s -> {
-          skipped.add(s);
-          spec.commandLine().getErr().println("steelyard: skipped " + s.file() + ":" + s.line() + ": " + s.reason());
-          spec.commandLine().getErr().flush();
-        });
   }
 }

@@ -99,7 +99,10 @@ public final class DemoCommand implements Callable<Integer> {
     session.warnings().forEach(w -> RescoreSupport.warn(err, w));
     RescoreRun.Outputs outputs = new RescoreRun.Outputs(outDir.resolve(p.stem() + ".picks.csv"), outDir.resolve(p.stem() + ".breakdown.csv"),
         outDir.resolve(p.stem() + ".summary.json"), null);
-    return RescoreRun.run(session, p.hyps(), p.refs(), outputs, run.effectiveThreads(), run.seed, List.of(), spec.commandLine().getOut());
+    RescoreRun.Result r = RescoreRun.run(session, p.hyps(), p.refs(), outputs, run.effectiveThreads(), run.seed, List.of(),
+        spec.commandLine().getOut());
+    r.runWarnings().forEach(w -> RescoreSupport.warn(err, w));
+    return r;
   }
 
   private static void printSummary(PrintWriter out, Part p, RescoreRun.Result r) {

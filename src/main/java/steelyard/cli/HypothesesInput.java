@@ -2,53 +2,31 @@ package steelyard.cli;
 
 import java.io.PrintWriter;
 import java.nio.file.Path;
-import java.util.ArrayList;
 import java.util.List;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import steelyard.io.FeatureSpec;
 import steelyard.io.ImportOptions;
 import steelyard.io.SkippedRow;
 
-/** Options shared by every command that reads a hypotheses file. */
+/** {@code --hyps FILE} and the import options, shared by every command that reads one hypotheses file. */
 public final class HypothesesInput {
   @Option(names = "--hyps", required = true, paramLabel = "FILE", description = "Hypotheses CSV (.gz accepted).")
   public Path hyps;
 
-  @Option(
-      names = "--features",
-      paramLabel = "SPECS",
-      description = "Score columns to use, comma-separated NAME[:ln|log10|cost|linear][:scale=S]; validated as numbers.")
-  public String features;
-
-  @Option(names = "--primary-system", paramLabel = "NAME", description = "System that wins ties for rank 1 between systems.")
-  public String primarySystem;
-
-  @Option(names = "--max-bad-rows", paramLabel = "N", defaultValue = "0", description = "Skip at most N malformed rows, reporting each (default ${DEFAULT-VALUE}).")
-  public int maxBadRows;
-
-  /** Rows skipped in lenient mode, for the JSON summary's {@code skipped_rows}. */
-  public final List<SkippedRow> skipped = new ArrayList<>();
+  @Mixin public ImportInput imports;
 
   public List<FeatureSpec> featureSpecs() {
-    return FeatureSpec.parseList(features);
+    return imports.featureSpecs();
+  }
+
+  /** Rows skipped in lenient mode, for the JSON summary's {@code skipped_rows}. */
+  public List<SkippedRow> skipped() {
+    return imports.skipped;
   }
 
   /** Import options; warnings and skipped rows go to {@code err}, skipped rows are also collected. */
   public ImportOptions importOptions(PrintWriter err) {
-    return new ImportOptions(
-        featureSpecs(),
-        primarySystem,
-        maxBadRows,
-        w -> {
-          err.println("steelyard: warning: " + w);
-          err.flush();
-        },
-        s -> {
-          synchronized (skipped) {
-            skipped.add(s);
-          }
-          err.println("steelyard: skipped " + s.file() + ":" + s.line() + ": " + s.reason());
-          err.flush();
-        });
+    return imports.importOptions(err);
   }
 }

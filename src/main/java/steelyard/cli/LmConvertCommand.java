@@ -22,6 +22,7 @@ public final class LmConvertCommand implements Callable<Integer> {
 
   @Override
   public Integer call() {
+    input.require();
     ModelFiles.kind(out);
     AtomicOutput.refuseOverwritingInput(out, input.lm);
     BackoffModel model = input.loadExact(spec.commandLine().getErr());

@@ -29,17 +29,17 @@ public final class LmInfoCommand implements Callable<Integer> {
   @Spec picocli.CommandLine.Model.CommandSpec spec;
   @Mixin LmModelInput input;
 
-  @Option(names = "--json", paramLabel = "FILE", description = "Also write the description as JSON to FILE ('-' = stdout, instead of the text form).")
-  Path json;
+  @Mixin JsonOutputOption json;
 
   @Override
   public Integer call() {
-    if (json != null) steelyard.io.AtomicOutput.refuseOverwritingInput(json, input.lm);
+    input.require();
+    if (json.file != null) steelyard.io.AtomicOutput.refuseOverwritingInput(json.file, input.lm);
     CompactModel lm = input.load(spec.commandLine().getErr());
     ObjectNode o = describe(lm, input.lm);
-    if (json != null) {
-      JsonOutput.write(json, o, spec.commandLine().getOut());
-      if (json.toString().equals("-")) return 0;
+    if (json.file != null) {
+      json.write(o, spec.commandLine().getOut());
+      if (json.toStdout()) return 0;
     }
     spec.commandLine().getOut().print(text(lm, o));
     spec.commandLine().getOut().flush();

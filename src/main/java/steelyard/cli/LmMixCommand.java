@@ -52,8 +52,7 @@ public final class LmMixCommand implements Callable<Integer> {
   @Option(names = "--out", required = true, paramLabel = "FILE", description = "Mixed model: .arpa, .arpa.gz or .bin.")
   Path out;
 
-  @Option(names = "--json", paramLabel = "FILE", description = "Write the report as JSON ('-' = stdout).")
-  Path json;
+  @Mixin JsonOutputOption json;
 
   @Override
   public Integer call() {
@@ -62,7 +61,7 @@ public final class LmMixCommand implements Callable<Integer> {
     List<Path> inputs = new ArrayList<>(models);
     inputs.add(text);
     AtomicOutput.refuseOverwritingInput(out, inputs.toArray(new Path[0]));
-    if (json != null) AtomicOutput.refuseOverwritingInput(json, inputs.toArray(new Path[0]));
+    if (json.file != null) AtomicOutput.refuseOverwritingInput(json.file, inputs.toArray(new Path[0]));
     List<BackoffModel> comps = new ArrayList<>();
     ModelFiles.LoadOptions loading = new ModelFiles.LoadOptions(BackoffModel.DEFAULT_UNKNOWN_FLOOR_LOG10, w -> LmModelInput.warn(err, w), null);
     for (Path m : models) comps.add(ModelFiles.loadExact(m, loading));
@@ -81,8 +80,8 @@ public final class LmMixCommand implements Callable<Integer> {
     ModelFiles.save(approx, out);
 
     ObjectNode report = report(fit, exact, written);
-    if (json != null) JsonOutput.write(json, report, spec.commandLine().getOut());
-    if (json == null || !json.toString().equals("-")) printText(fit, exact, written);
+    json.write(report, spec.commandLine().getOut());
+    if (!json.toStdout()) printText(fit, exact, written);
     return 0;
   }
 

@@ -9,7 +9,9 @@ import java.util.function.Function;
 import me.tongfei.progressbar.ProgressBar;
 import me.tongfei.progressbar.ProgressBarBuilder;
 import picocli.CommandLine;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
 import steelyard.io.InputException;
 import steelyard.io.InputFiles;
 import steelyard.lm.BackoffModel;
@@ -22,9 +24,16 @@ import steelyard.text.NormalisationOptions;
 import steelyard.text.Normaliser;
 import steelyard.text.Unit;
 
-/** Options of the commands that read one model: {@code --lm}, {@code --oov-log10-prob}, {@code --progress}. */
+/**
+ * Options of the commands that read one model: {@code --lm}, {@code --oov-log10-prob}, {@code --progress}. The
+ * {@code lm} commands require {@code --lm} ({@link #require}); {@code rescore} and {@code network} need it only
+ * when a weight uses the model.
+ */
 public final class LmModelInput {
-  @Option(names = "--lm", required = true, paramLabel = "FILE", description = "Model file: .arpa, .arpa.gz or .bin.")
+  @Spec(Spec.Target.MIXEE) CommandSpec mixee;
+
+  @Option(names = "--lm", paramLabel = "FILE",
+      description = "Model file: .arpa, .arpa.gz or .bin (rescore and network: needed when λ, ω or λ′ is not 0).")
   public Path lm;
 
   @Option(names = "--oov-log10-prob", paramLabel = "X", defaultValue = "-7",
@@ -33,6 +42,17 @@ public final class LmModelInput {
 
   @Option(names = "--progress", description = "Show loading progress on stderr (default: only when attached to a console).")
   public boolean progress;
+
+  /** The model file; a usage error (as for a missing required option) when none is given. */
+  public Path require() {
+    if (lm == null) throw new CommandLine.ParameterException(mixee.commandLine(), "Missing required option: '--lm=FILE'");
+    return lm;
+  }
+
+  /** How a rescoring session loads the model: this floor, progress on {@code err}; warnings left to the session. */
+  ModelFiles.LoadOptions sessionLoading(PrintWriter err) {
+    return new ModelFiles.LoadOptions(unknownLog10, null, ConsoleProgress.wanted(progress) ? new Bar(err) : null);
+  }
 
   /** The model as the compact query engine. */
   public CompactModel load(PrintWriter err) {

@@ -24,22 +24,22 @@ public final class LmPerplexityCommand implements Callable<Integer> {
   @Option(names = "--text", required = true, paramLabel = "FILE", description = "Held-out text, one sentence per line (.gz accepted).")
   Path text;
 
-  @Option(names = "--json", paramLabel = "FILE", description = "Write the figures as JSON to FILE ('-' = stdout, instead of the text form).")
-  Path json;
+  @Mixin JsonOutputOption json;
 
   @Override
   public Integer call() {
+    input.require();
     PrintWriter err = spec.commandLine().getErr();
-    if (json != null) steelyard.io.AtomicOutput.refuseOverwritingInput(json, input.lm, text);
+    if (json.file != null) steelyard.io.AtomicOutput.refuseOverwritingInput(json.file, input.lm, text);
     CompactModel lm = input.load(err);
     var tokenizer = LmModelInput.tokenizer(lm, normalisation, spec.commandLine().getParseResult(), err);
     Perplexity ppl = new Perplexity(lm);
     LmModelInput.forEachSentence(text, tokenizer, ppl::add);
     PerplexityResult r = ppl.result();
-    if (json != null) {
+    if (json.file != null) {
       ObjectNode o = json(r);
-      JsonOutput.write(json, o, spec.commandLine().getOut());
-      if (json.toString().equals("-")) return 0;
+      json.write(o, spec.commandLine().getOut());
+      if (json.toStdout()) return 0;
     }
     PrintWriter out = spec.commandLine().getOut();
     out.printf(Locale.ROOT, "sentences   %d%n", r.sentences());

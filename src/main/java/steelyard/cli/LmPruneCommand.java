@@ -42,17 +42,17 @@ public final class LmPruneCommand implements Callable<Integer> {
   @Option(names = "--out", required = true, paramLabel = "FILE", description = "Pruned model: .arpa, .arpa.gz or .bin.")
   Path out;
 
-  @Option(names = "--json", paramLabel = "FILE", description = "Write the report as JSON ('-' = stdout).")
-  Path json;
+  @Mixin JsonOutputOption json;
 
   @Override
   public Integer call() {
+    input.require();
     PrintWriter err = spec.commandLine().getErr();
     if (!(threshold >= 0) || Double.isInfinite(threshold))
       throw InputException.option("--threshold", "'" + threshold + "' is not a finite number >= 0", "a relative-entropy threshold such as 1e-7");
     Path[] inputs = text == null ? new Path[] {input.lm} : new Path[] {input.lm, text};
     AtomicOutput.refuseOverwritingInput(out, inputs);
-    if (json != null) AtomicOutput.refuseOverwritingInput(json, inputs);
+    if (json.file != null) AtomicOutput.refuseOverwritingInput(json.file, inputs);
     BackoffModel model = input.loadExact(err);
     if (model.metadata().stream().anyMatch(l -> l.replace(" ", "").endsWith("smoothing=mkn"))) {
       LmModelInput.warn(err, "this is a modified Kneser-Ney model; Kneser-Ney models lose more under heavy entropy pruning "
@@ -70,8 +70,8 @@ public final class LmPruneCommand implements Callable<Integer> {
       after = perplexity(r.model(), sentences);
     }
     ObjectNode report = report(r, before, after);
-    if (json != null) JsonOutput.write(json, report, spec.commandLine().getOut());
-    if (json == null || !json.toString().equals("-")) printText(r, before, after);
+    json.write(report, spec.commandLine().getOut());
+    if (!json.toStdout()) printText(r, before, after);
     return 0;
   }
 

@@ -32,6 +32,7 @@ public final class LmSentenceScoresCommand implements Callable<Integer> {
 
   @Override
   public Integer call() {
+    input.require();
     PrintWriter err = spec.commandLine().getErr();
     steelyard.io.AtomicOutput.refuseOverwritingInput(csv, input.lm, text);
     CompactModel lm = input.load(err);

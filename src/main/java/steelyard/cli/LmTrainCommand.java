@@ -67,8 +67,7 @@ public final class LmTrainCommand implements Callable<Integer> {
   @Option(names = "--out", required = true, paramLabel = "FILE", description = "Model file: .arpa, .arpa.gz or .bin.")
   Path out;
 
-  @Option(names = "--json", paramLabel = "FILE", description = "Also write the training report as JSON (- for stdout).")
-  Path json;
+  @Mixin JsonOutputOption json;
 
   @Option(names = "--progress", description = "Show progress on stderr even when it is not a terminal.")
   boolean progress;
@@ -90,7 +89,7 @@ public final class LmTrainCommand implements Callable<Integer> {
     PrintWriter err = spec.commandLine().getErr();
     err.print(humanReport(trained.report(), saveSeconds));
     err.flush();
-    if (json != null) writeJson(trained.report(), saveSeconds);
+    if (json.file != null) writeJson(trained.report(), saveSeconds);
     return Main.OK;
   }
 
@@ -172,6 +171,6 @@ public final class LmTrainCommand implements Callable<Integer> {
     m.put("warnings", r.warnings());
     m.put("seconds_training", r.seconds());
     m.put("seconds_writing", saveSeconds);
-    JsonOutput.write(json, JsonOutput.tree(m), spec.commandLine().getOut());
+    JsonOutput.write(json.file, JsonOutput.tree(m), spec.commandLine().getOut());
   }
 }

@@ -54,11 +54,8 @@ public final class NetworkCommand implements Callable<Integer> {
   @Option(names = "--utt", required = true, paramLabel = "ID", description = "The utterance whose network is exported.")
   String uttId;
 
-  @Option(names = "--lm", paramLabel = "FILE", description = "Language model; needed when λ or ω is not 0, or λ′ with --kbest.")
-  Path lm;
+  @Mixin LmModelInput model;
 
-  @Option(names = "--weights", paramLabel = "FILE", description = "Weights file (JSON) to start from; options given here override it.")
-  Path weightsFile;
 
   @Option(names = "--dot", paramLabel = "FILE", description = "Graphviz DOT of the network.")
   Path dot;
@@ -69,8 +66,7 @@ public final class NetworkCommand implements Callable<Integer> {
   @Option(names = "--kbest", paramLabel = "K", defaultValue = "0", description = "List the K best paths of the LM search (0 = none).")
   int kbest;
 
-  @Option(names = "--json", paramLabel = "FILE|-", description = "JSON summary of the network and the k best paths ('-' for stdout).")
-  Path json;
+  @Mixin JsonOutputOption json;
 
   @Override
   public Integer call() {
@@ -78,17 +74,18 @@ public final class NetworkCommand implements Callable<Integer> {
     Map<String, Path> outputs = new LinkedHashMap<>();
     outputs.put("--dot", dot);
     outputs.put("--arcs", arcs);
-    outputs.put("--json", json);
-    OutputPaths.refuseClashes(outputs, Arrays.asList(input.hyps, lm, weightsFile, normalisation.rules));
+    outputs.put("--json", json.file);
+    OutputPaths.refuseClashes(outputs, Arrays.asList(input.hyps, model.lm, weightOptions.weightsFile, normalisation.rules));
 
     PrintWriter err = spec.commandLine().getErr();
     PrintWriter out = spec.commandLine().getOut();
     // Consensus builds the same network as the lattice search; the search (and so the model) is needed only for --kbest.
     RescoreSession session = RescoreSession.open(RescoreConfig.builder()
         .features(input.featureSpecs())
-        .weightsFile(weightsFile)
+        .weightsFile(weightOptions.weightsFile)
         .overrides(weightOptions.spec())
-        .modelPath(lm)
+        .modelPath(model.lm)
+        .modelLoading(model.sessionLoading(err))
         .normalisation(normalisation.options())
         .unit(spec.commandLine().getParseResult().hasMatchedOption("--unit") ? normalisation.unit : null)
         .method(kbest > 0 ? RescoreMethod.LATTICE : RescoreMethod.CONSENSUS)
@@ -103,8 +100,8 @@ public final class NetworkCommand implements Callable<Integer> {
 
     if (dot != null) AtomicOutput.writeText(dot, out, w -> NetworkExport.writeDot(net, uttId, w));
     if (arcs != null) AtomicOutput.writeText(arcs, out, w -> NetworkExport.writeCsv(net, w));
-    if (kbest > 0 && !OutputPaths.isStdout(json)) printPaths(out, paths, unit);
-    if (json != null) JsonOutput.write(json, summary(s, net, paths, unit, session.weights()), out);
+    if (kbest > 0 && !OutputPaths.isStdout(json.file)) printPaths(out, paths, unit);
+    if (json.file != null) JsonOutput.write(json.file, summary(s, net, paths, unit, session.weights()), out);
     err.printf(Locale.ROOT, "steelyard network: %s: %d hypotheses, %d entered, %d slots, %d arcs%s%n",
         uttId, s.size(), net.enteredCount(), net.slotCount(), net.arcCount(),
         net.capped() ? " (the hypothesis cap applied)" : "");

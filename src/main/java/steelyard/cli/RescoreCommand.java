@@ -35,8 +35,7 @@ public final class RescoreCommand implements Callable<Integer> {
   @Mixin RescoreWeightOptions weightOptions;
   @Spec CommandSpec spec;
 
-  @Option(names = "--lm", paramLabel = "FILE", description = "Language model (.arpa, .arpa.gz or .bin); needed when λ, ω or λ′ is not 0.")
-  Path lm;
+  @Mixin LmModelInput model;
 
   @Option(names = "--method", paramLabel = "nbest|mbr|consensus|lattice", defaultValue = "nbest",
       description = "How to choose: best total, minimum expected errors, consensus of the confusion network, or LM search over it. Default ${DEFAULT-VALUE}.")
@@ -45,14 +44,11 @@ public final class RescoreCommand implements Callable<Integer> {
   @Option(names = "--max-hyps", paramLabel = "N", defaultValue = "0", description = "Keep at most N hypotheses per system, by rank (0 = all).")
   int maxHyps;
 
-  @Option(names = "--weights", paramLabel = "FILE", description = "Weights file (JSON) to start from; options given here override it.")
-  Path weightsFile;
 
   @Option(names = "--save-weights", paramLabel = "FILE", description = "Write the weights in effect to this file (JSON).")
   Path saveWeights;
 
-  @Option(names = "--refs", paramLabel = "FILE", description = "References CSV: adds error rates of the choice, of rank 1 and of the oracle.")
-  Path refs;
+  @Mixin ReferencesInput references;
 
   @Option(names = "--out", paramLabel = "FILE", description = "picks.csv: one row per utterance (default: stdout unless --json is given).")
   Path out;
@@ -60,26 +56,26 @@ public final class RescoreCommand implements Callable<Integer> {
   @Option(names = "--breakdown", paramLabel = "FILE", description = "CSV with the score breakdown of every hypothesis (for audits).")
   Path breakdown;
 
-  @Option(names = "--json", paramLabel = "FILE|-", description = "JSON summary ('-' for stdout).")
-  Path json;
+  @Mixin JsonOutputOption json;
   @Override
   public Integer call() {
     if (maxHyps < 0) throw InputException.option("--max-hyps", "is " + maxHyps, "0 (all) or a positive number");
     if (run.threads < 0) throw InputException.option("--threads", "is " + run.threads, "0 (all cores) or a positive number");
-    Path picks = out != null ? out : (json == null ? Path.of("-") : null);
+    Path picks = out != null ? out : (json.file == null ? Path.of("-") : null);
     Map<String, Path> outputs = new LinkedHashMap<>();
     outputs.put("--out", picks);
     outputs.put("--breakdown", breakdown);
-    outputs.put("--json", json);
+    outputs.put("--json", json.file);
     outputs.put("--save-weights", saveWeights);
-    OutputPaths.refuseClashes(outputs, Arrays.asList(input.hyps, lm, refs, weightsFile, normalisation.rules));
+    OutputPaths.refuseClashes(outputs, Arrays.asList(input.hyps, model.lm, references.refs, weightOptions.weightsFile, normalisation.rules));
 
     PrintWriter err = spec.commandLine().getErr();
     RescoreSession session = RescoreSession.open(RescoreConfig.builder()
         .features(input.featureSpecs())
-        .weightsFile(weightsFile)
+        .weightsFile(weightOptions.weightsFile)
         .overrides(weightOptions.spec())
-        .modelPath(lm)
+        .modelPath(model.lm)
+        .modelLoading(model.sessionLoading(err))
         .normalisation(normalisation.options())
         .unit(spec.commandLine().getParseResult().hasMatchedOption("--unit") ? normalisation.unit : null)
         .method(method)
@@ -87,9 +83,9 @@ public final class RescoreCommand implements Callable<Integer> {
         .importOptions(input.importOptions(err))
         .build());
     session.warnings().forEach(w -> RescoreSupport.warn(err, w));
-    RescoreRun.Result result = RescoreRun.run(session, input.hyps, refs, new RescoreRun.Outputs(picks, breakdown, json, saveWeights),
-        run.effectiveThreads(), run.seed, input.skipped, spec.commandLine().getOut());
-    RescoreSupport.printSummary(err, result.summary(), session.method(), refs != null);
+    RescoreRun.Result result = RescoreRun.run(session, input.hyps, references.refs, new RescoreRun.Outputs(picks, breakdown, json.file, saveWeights),
+        run.effectiveThreads(), run.seed, input.skipped(), spec.commandLine().getOut());
+    RescoreSupport.printSummary(err, result, session.method());
     return Main.OK;
   }
 }

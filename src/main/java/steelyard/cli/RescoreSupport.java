@@ -3,6 +3,9 @@ package steelyard.cli;
 import java.io.PrintWriter;
 import java.util.Locale;
 import steelyard.eval.EditCounts;
+import steelyard.eval.PairedComparison;
+import steelyard.report.Numbers;
+import steelyard.rescore.RescoreRun;
 import steelyard.rescore.RescoreMethod;
 import steelyard.rescore.RescoreSummary;
 
@@ -15,7 +18,11 @@ final class RescoreSupport {
     err.flush();
   }
 
-  static void printSummary(PrintWriter err, RescoreSummary s, RescoreMethod method, boolean withReferences) {
+  /** The run's own warnings, then the summary (with references: error rates and the paired test against rank 1). */
+  static void printSummary(PrintWriter err, RescoreRun.Result r, RescoreMethod method) {
+    r.runWarnings().forEach(w -> warn(err, w));
+    RescoreSummary s = r.summary();
+    boolean withReferences = r.versusFirst() != null;
     err.printf(Locale.ROOT, "steelyard rescore: %d utterances by %s; %d choices differ from rank 1%s%s%n",
         s.utterances(), method.label(), s.changed(),
         s.newTranscripts() > 0 ? ", " + s.newTranscripts() + " are new transcripts" : "",
@@ -23,6 +30,12 @@ final class RescoreSupport {
     if (withReferences) {
       err.printf(Locale.ROOT, "  error rate %s (rank 1 %s, N-best oracle %s) over %d utterances%n",
           percent(s.chosen()), percent(s.first()), percent(s.oracle()), s.scored());
+      PairedComparison c = r.versusFirst();
+      err.printf(Locale.ROOT, "  versus rank 1: better on %d, worse on %d, tied on %d utterances; difference %s points "
+              + "(95 %% interval %s to %s); sign test p %s%n",
+          c.bBetter(), c.aBetter(), c.ties(), Numbers.signedPoints(c.difference(), 2),
+          Numbers.signedPoints(c.paired().difference().low(), 2), Numbers.signedPoints(c.paired().difference().high(), 2),
+          Numbers.pValue(c.signTestP()));
     }
     err.println("  note: " + RescoreSummary.NOTICE);
     err.flush();

@@ -1,13 +1,20 @@
 package steelyard.cli;
 
+import java.nio.file.Path;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import picocli.CommandLine.Option;
 import steelyard.io.InputException;
 import steelyard.rescore.WeightsSpec;
 
-/** The weight options of {@code rescore}; each is "not given" unless used, so a weights file can supply it. */
+/**
+ * The weights layers of the rescoring commands: {@code --weights FILE} (the lower layer) and one option per
+ * weight (the upper layer); each weight is "not given" unless used, so the weights file can supply it.
+ */
 public final class RescoreWeightOptions {
+  @Option(names = "--weights", paramLabel = "FILE", description = "Weights file (JSON) to start from; options given here override it.")
+  public Path weightsFile;
+
   @Option(names = "--weight", paramLabel = "NAME=V", description = "Weight of a feature column (repeatable; default 1 for every listed feature).")
   Map<String, String> features = new LinkedHashMap<>();
 

@@ -51,8 +51,7 @@ public final class ScoreCommand implements Callable<Integer> {
   @Mixin RunInput run;
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
-  @Option(names = "--refs", required = true, paramLabel = "FILE", description = "References CSV (utt_id,text[,group]; .gz accepted).")
-  Path refs;
+  @Mixin ReferencesInput references;
 
   @Option(names = "--system", paramLabel = "NAME",
       description = "Score only this value of the system column (its own smallest rank is its pick).")
@@ -73,8 +72,7 @@ public final class ScoreCommand implements Callable<Integer> {
   @Option(names = "--top", paramLabel = "K", defaultValue = "10", description = "How many frequent substitutions, deletions and insertions to list (default ${DEFAULT-VALUE}).")
   int top;
 
-  @Option(names = "--json", paramLabel = "FILE|-", description = "Write the JSON summary to FILE, or to stdout with '-'.")
-  Path json;
+  @Mixin JsonOutputOption json;
 
   @Option(names = "--csv", paramLabel = "FILE|-", description = "Write the per-utterance table as CSV to FILE, or to stdout with '-'.")
   Path csv;
@@ -85,14 +83,19 @@ public final class ScoreCommand implements Callable<Integer> {
 
   @Override
   public Integer call() {
+    Path refs = references.require();
     checkOptions(pick, resamples, top);
     LinkedHashMap<String, Path> outputs = new LinkedHashMap<>();
-    outputs.put("--json", json);
+    outputs.put("--json", json.file);
     outputs.put("--csv", csv);
     OutputPaths.refuseClashes(outputs, Arrays.asList(hypotheses.hyps, refs, normalisation.rules));
 
     List<String> warnings = new ArrayList<>();
-    ImportOptions options = collecting(hypotheses.importOptions(spec.commandLine().getErr()), warnings);
+    ImportOptions options = hypotheses.imports.importOptions(spec.commandLine().getErr(), w -> {
+      synchronized (warnings) {
+        warnings.add(w);
+      }
+    });
     Normaliser normaliser = Normaliser.create(normalisation.options());
     Unit unit = normalisation.unit;
     LinkedHashMap<String, Reference> refMap = ReferencesReader.readAll(refs, withoutFeatures(options));
@@ -109,12 +112,12 @@ public final class ScoreCommand implements Callable<Integer> {
     String source = system == null ? hypotheses.hyps.toString() : hypotheses.hyps + " system=" + system;
     ScoreContext context = new ScoreContext(source, refs.toString(), unit,
         normaliser.describe(), normaliser.ruleUsage(), run.seed, resamples, ci,
-        hypotheses.skipped, warnings);
+        hypotheses.skipped(), warnings);
 
     PrintWriter stdout = spec.commandLine().getOut();
     if (csv != null) AtomicOutput.writeText(csv, stdout, out -> ScoreReport.csv(score, out, spreadsheetSafe));
-    if (json != null) JsonOutput.write(json, ScoreReport.json(score, context), stdout);
-    printReport(spec, OutputPaths.isStdout(csv) ? csv : json, ScoreReport.text(score, context));
+    json.write(ScoreReport.json(score, context), stdout);
+    printReport(spec, OutputPaths.isStdout(csv) ? csv : json.file, ScoreReport.text(score, context));
     return Main.OK;
   }
 
@@ -131,18 +134,6 @@ public final class ScoreCommand implements Callable<Integer> {
     if (resamples < 1 || resamples > MAX_RESAMPLES)
       throw InputException.option("--resamples", "must be between 1 and " + MAX_RESAMPLES + ", got " + resamples, "a number such as 1000");
     if (top < 0) throw InputException.option("--top", "must not be negative, got " + top, "0 or more");
-  }
-
-  /** The same import options, with warnings also collected for the JSON summary. */
-  static ImportOptions collecting(ImportOptions base, List<String> sink) {
-    return new ImportOptions(base.features(), base.primarySystem(), base.maxBadRows(),
-        w -> {
-          synchronized (sink) {
-            sink.add(w);
-          }
-          base.warnings().accept(w);
-        },
-        base.skipped());
   }
 
   /** The same options with no feature columns (a references file has none). */

@@ -57,33 +57,40 @@ public record PairedComparison(
     IntArrayList ea = new IntArrayList();
     IntArrayList eb = new IntArrayList();
     IntArrayList refs = new IntArrayList();
+    for (int row = 0; row < ta.size(); row++) {
+      if (!ta.uttId(row).equals(tb.uttId(row))) throw new IllegalArgumentException("rows differ at " + row);
+      if (!ta.included(row) || !tb.included(row)) continue;
+      ea.add(ta.errors(row));
+      eb.add(tb.errors(row));
+      refs.add(ta.referenceTokens(row));
+    }
+    return of(ea.toIntArray(), eb.toIntArray(), refs.toIntArray(), resamples, seed, threads);
+  }
+
+  /**
+   * Compares two systems' per-utterance error counts on the same utterances ({@code errorsA[i]},
+   * {@code errorsB[i]} and {@code refTokens[i]} belong to utterance i).
+   */
+  public static PairedComparison of(int[] errorsA, int[] errorsB, int[] refTokens, int resamples, long seed, int threads) {
+    if (errorsA.length != refTokens.length || errorsB.length != refTokens.length)
+      throw new IllegalArgumentException("need one error count per utterance for both systems: " + refTokens.length);
     long sumA = 0;
     long sumB = 0;
     long n = 0;
     int aBetter = 0;
     int bBetter = 0;
-    for (int row = 0; row < ta.size(); row++) {
-      if (!ta.uttId(row).equals(tb.uttId(row))) throw new IllegalArgumentException("rows differ at " + row);
-      if (!ta.included(row) || !tb.included(row)) continue;
-      int x = ta.errors(row);
-      int y = tb.errors(row);
-      ea.add(x);
-      eb.add(y);
-      refs.add(ta.referenceTokens(row));
-      sumA += x;
-      sumB += y;
-      n += ta.referenceTokens(row);
-      if (x < y) aBetter++;
-      if (y < x) bBetter++;
+    for (int i = 0; i < refTokens.length; i++) {
+      sumA += errorsA[i];
+      sumB += errorsB[i];
+      n += refTokens[i];
+      if (errorsA[i] < errorsB[i]) aBetter++;
+      if (errorsB[i] < errorsA[i]) bBetter++;
     }
-    int[] errA = ea.toIntArray();
-    int[] errB = eb.toIntArray();
-    int[] ref = refs.toIntArray();
     // One seed for all three analyses: each sees the same resampled utterance sets.
-    Bootstrap.Interval ia = Bootstrap.corpusRate(errA, ref, resamples, seed, threads);
-    Bootstrap.Interval ib = Bootstrap.corpusRate(errB, ref, resamples, seed, threads);
-    Bootstrap.Paired p = Bootstrap.paired(errA, errB, ref, resamples, seed, threads);
-    int ties = ref.length - aBetter - bBetter;
-    return new PairedComparison(ref.length, n, sumA, sumB, ia, ib, p, aBetter, bBetter, ties, SignTest.twoSidedP(aBetter, bBetter));
+    Bootstrap.Interval ia = Bootstrap.corpusRate(errorsA, refTokens, resamples, seed, threads);
+    Bootstrap.Interval ib = Bootstrap.corpusRate(errorsB, refTokens, resamples, seed, threads);
+    Bootstrap.Paired p = Bootstrap.paired(errorsA, errorsB, refTokens, resamples, seed, threads);
+    int ties = refTokens.length - aBetter - bBetter;
+    return new PairedComparison(refTokens.length, n, sumA, sumB, ia, ib, p, aBetter, bBetter, ties, SignTest.twoSidedP(aBetter, bBetter));
   }
 }

@@ -9,14 +9,17 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.Writer;
+import java.math.BigDecimal;
+import java.math.MathContext;
+import java.math.RoundingMode;
 import java.nio.file.Path;
 import java.util.Collection;
 
 /**
  * The one JSON set-up of every output (summaries, reports, weights files): keys in insertion order (build with
  * {@link #object()}), two-space indentation of objects and arrays, LF line ends on every platform, decimals
- * written plain (never in exponent form), a final newline. Numbers that must have fixed digits should be added
- * as {@link java.math.BigDecimal} values (e.g. {@code report.Numbers#decimal}).
+ * written plain (never in exponent form), a final newline. Numbers that must have fixed digits are added as
+ * {@link BigDecimal} values from {@link #fixed} or {@link #significant}.
  *
  * <p>{@code {@code JsonOutput.write(target, JsonOutput.object().put("utterances", 300), spec.commandLine().getOut())}}
  *
@@ -44,6 +47,20 @@ public final class JsonOutput {
     ArrayNode a = array();
     values.forEach(a::add);
     return a;
+  }
+
+  /** {@code v} rounded half-even to exactly {@code decimals} decimals (written plain); null when not finite. */
+  public static BigDecimal fixed(double v, int decimals) {
+    if (!Double.isFinite(v)) return null;
+    BigDecimal d = new BigDecimal(v).setScale(decimals, RoundingMode.HALF_EVEN);
+    return d.signum() == 0 ? BigDecimal.ZERO.setScale(decimals) : d;
+  }
+
+  /** {@code v} to {@code digits} significant digits (plain form, e.g. a small p-value); null when not finite. */
+  public static BigDecimal significant(double v, int digits) {
+    if (!Double.isFinite(v)) return null;
+    if (v == 0) return BigDecimal.ZERO;
+    return new BigDecimal(v).round(new MathContext(digits, RoundingMode.HALF_EVEN)).stripTrailingZeros();
   }
 
   /** A fresh pretty printer of this layout, for streaming writers ({@link JsonGenerator#setPrettyPrinter}). */

@@ -3,6 +3,7 @@ package steelyard.report;
 import java.math.BigDecimal;
 import java.math.RoundingMode;
 import java.util.Locale;
+import steelyard.io.JsonOutput;
 
 /**
  * Fixed-digit number formatting for every report, independent of the platform locale ({@link Locale#ROOT}), so
@@ -40,14 +41,12 @@ public final class Numbers {
 
   /** {@code v} rounded to {@code digits} decimals for JSON (written plain, never in exponent form); null when not finite. */
   public static BigDecimal decimal(double v, int digits) {
-    return Double.isFinite(v) ? round(v, digits) : null;
+    return JsonOutput.fixed(v, digits);
   }
 
   /** {@code v} to {@code significant} significant digits for JSON (plain form, e.g. a small p-value); null when not finite. */
   public static BigDecimal significant(double v, int significant) {
-    if (!Double.isFinite(v)) return null;
-    if (v == 0) return BigDecimal.ZERO;
-    return new BigDecimal(v).round(new java.math.MathContext(significant, RoundingMode.HALF_EVEN)).stripTrailingZeros();
+    return JsonOutput.significant(v, significant);
   }
 
   /** A p-value for text: four decimals, or {@code < 0.0001} below that. */

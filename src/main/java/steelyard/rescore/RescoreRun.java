@@ -10,6 +10,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import steelyard.eval.Bootstrap;
+import steelyard.eval.PairedComparison;
 import steelyard.io.AtomicOutput;
 import steelyard.io.CsvWriter;
 import steelyard.io.JsonOutput;
@@ -37,11 +38,18 @@ public final class RescoreRun {
    * What a run produced.
    *
    * @param summary  the totals (error counts when references were given)
-   * @param ci95     the bootstrap interval of the chosen error rate; null without references
-   * @param json     the JSON summary (also when it was not written)
-   * @param warnings the session's warnings followed by the run's own (e.g. collapsed posteriors)
+   * @param ci95        the bootstrap interval of the chosen error rate; null without references
+   * @param versusFirst the paired test of the choice against rank 1; null without references
+   * @param json        the JSON summary (also when it was not written)
+   * @param warnings    the session's warnings followed by the run's own (e.g. collapsed posteriors)
    */
-  public record Result(RescoreSummary summary, Bootstrap.Interval ci95, ObjectNode json, List<String> warnings) {}
+  public record Result(RescoreSummary summary, Bootstrap.Interval ci95, PairedComparison versusFirst, ObjectNode json,
+      List<String> warnings) {
+    /** The run's own warnings (the session's were known before it started). */
+    public List<String> runWarnings() {
+      return summary.warnings();
+    }
+  }
 
   private RescoreRun() {}
 
@@ -84,25 +92,31 @@ public final class RescoreRun {
   private static Result finish(RescoreSession session, RescoreSummary summary, boolean withReferences, Outputs outputs,
       int threads, long seed, List<SkippedRow> skipped, Writer stdout) {
     Bootstrap.Interval ci = null;
+    PairedComparison paired = null;
     if (withReferences) {
       ci = Bootstrap.corpusRate(summary.errorsPerUtterance(), summary.referenceTokensPerUtterance(),
           Bootstrap.DEFAULT_RESAMPLES, seed, threads);
+      paired = summary.versusFirst(Bootstrap.DEFAULT_RESAMPLES, seed, threads);
     }
     ObjectNode node = summary.toJson(session.method().label(), session.unit().label(), seed, withReferences,
         ci == null ? null : new double[] {ci.low(), ci.high()});
-    if (withReferences) node.put("resamples", Bootstrap.DEFAULT_RESAMPLES);
+    if (withReferences) {
+      node.put("resamples", Bootstrap.DEFAULT_RESAMPLES);
+      node.set("versus_first", RescoreSummary.versusFirstJson(paired));
+    }
     ArrayNode rows = node.putArray("skipped_rows");
     synchronized (skipped) {
       skipped.forEach(s -> rows.addObject().put("file", s.file()).put("line", s.line()).put("reason", s.reason()));
     }
     List<String> warnings = new ArrayList<>(session.warnings());
+    warnings.addAll(summary.warnings());
     node.set("warnings", JsonOutput.strings(warnings));
     boolean identify = session.config().modelPath() != null && (outputs.saveWeights() != null || session.fileWeights().model != null);
     WeightsSpec effective = WeightsSpec.of(session.weights(), session.unit(), identify ? session.modelIdentity() : null);
     node.set("weights", JsonOutput.parse(WeightsFile.toJson(effective)));
     if (outputs.json() != null) JsonOutput.write(outputs.json(), node, stdout);
     if (outputs.saveWeights() != null) WeightsFile.save(outputs.saveWeights(), effective, stdout);
-    return new Result(summary, ci, node, warnings);
+    return new Result(summary, ci, paired, node, warnings);
   }
 
   private interface Body {

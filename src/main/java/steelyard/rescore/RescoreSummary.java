@@ -4,20 +4,26 @@ import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.JsonNodeFactory;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import it.unimi.dsi.fastutil.ints.IntArrayList;
-import java.math.BigDecimal;
-import java.math.RoundingMode;
 import java.util.ArrayList;
 import java.util.List;
 import steelyard.eval.EditCounts;
+import steelyard.eval.PairedComparison;
+import steelyard.io.JsonOutput;
 
 /**
  * Accumulates a rescoring run in input order (so the totals do not depend on the thread count) and renders
  * the JSON summary. With references, the error keys are those of the {@code score} command plus
  * {@code first_error_rate}, {@code oracle_error_rate}, {@code lattice_oracle_error_rate} (network methods)
- * and {@code changed}.
+ * and {@code changed}; {@link #versusFirstJson} renders the paired test of the choice against rank 1.
  *
- * <p>Per scored utterance it keeps two ints (errors, reference tokens of the choice) for the bootstrap:
- * 8 bytes per utterance in two {@link IntArrayList}s.
+ * <p>For the methods that use posteriors (MBR and the network methods) it counts the utterances in which a
+ * system has at least two kept hypotheses, and among them those where, in every such system, one hypothesis
+ * holds more than {@value #COLLAPSED_MASS} of that system's mass (α scales totals within a system; systems are
+ * then mixed by their weights). When that is most of them the posteriors have collapsed to 0 or 1 and the
+ * method degenerates to each system's best total ({@link #warnings()}).
+ *
+ * <p>Per scored utterance it keeps three ints (errors of the choice and of rank 1, reference tokens) for the
+ * bootstrap and the paired test: 12 bytes per utterance in three {@link IntArrayList}s.
  */
 public final class RescoreSummary {
   /** Printed with every result: an automatic pick is a statistical choice. */
@@ -26,6 +32,12 @@ public final class RescoreSummary {
 
   /** Rates and interval ends are written with this many decimals, as by the {@code score} command. */
   public static final int RATE_DIGITS = 6;
+
+  /** A hypothesis holding more than this share of an utterance's posterior mass counts as a collapse. */
+  public static final double COLLAPSED_MASS = 0.999;
+
+  /** Significant digits of a p-value in the JSON. */
+  private static final int P_DIGITS = 10;
 
   private long utterances;
   private long hypotheses;
@@ -39,7 +51,10 @@ public final class RescoreSummary {
   private long latticeOracleErrors;
   private boolean latticeOracle;
   private long sentenceErrors;
+  private long posteriorUtterances;
+  private long collapsed;
   private final IntArrayList errorsPerUtterance = new IntArrayList();
+  private final IntArrayList firstErrorsPerUtterance = new IntArrayList();
   private final IntArrayList tokensPerUtterance = new IntArrayList();
   private final List<String> missingHypotheses = new ArrayList<>();
   private final List<String> missingReferences = new ArrayList<>();
@@ -51,6 +66,9 @@ public final class RescoreSummary {
     if (r.changed()) changed++;
     if (r.isNewTranscript()) newTranscripts++;
     if (r.capped()) capped++;
+    int state = r.method() == RescoreMethod.NBEST ? -1 : collapseState(r);
+    if (state >= 0) posteriorUtterances++;
+    if (state > 0) collapsed++;
     if (errors != null) {
       addScored(errors.chosen(), errors.first(), errors.oracle());
       if (errors.latticeOracle() >= 0) {
@@ -79,6 +97,7 @@ public final class RescoreSummary {
     oracle = oracle.plus(o);
     if (c.errors() > 0) sentenceErrors++;
     errorsPerUtterance.add(Math.toIntExact(c.errors()));
+    firstErrorsPerUtterance.add(Math.toIntExact(f.errors()));
     tokensPerUtterance.add(Math.toIntExact(c.referenceTokens()));
   }
 
@@ -94,6 +113,53 @@ public final class RescoreSummary {
   public int[] errorsPerUtterance() { return errorsPerUtterance.toIntArray(); }
   /** Per scored utterance: reference tokens. */
   public int[] referenceTokensPerUtterance() { return tokensPerUtterance.toIntArray(); }
+  /** Per scored utterance: errors of the recogniser's rank 1. */
+  public int[] firstErrorsPerUtterance() { return firstErrorsPerUtterance.toIntArray(); }
+  /** Utterances where a system has at least two kept hypotheses, rescored by a method that uses posteriors. */
+  public long posteriorUtterances() { return posteriorUtterances; }
+  /** Of those, the utterances where one hypothesis holds more than {@value #COLLAPSED_MASS} of each such system's mass. */
+  public long collapsedUtterances() { return collapsed; }
+
+  /** Whether the posteriors collapsed in most (more than half) of the utterances where they matter. */
+  public boolean posteriorsCollapsed() {
+    return posteriorUtterances > 0 && 2 * collapsed > posteriorUtterances;
+  }
+
+  /** Warnings about the run itself (collapsed posteriors), in a fixed order. */
+  public List<String> warnings() {
+    if (!posteriorsCollapsed()) return List.of();
+    return List.of("posteriors are nearly all 0 or 1 (in " + collapsed + " of " + posteriorUtterances
+        + " utterances one hypothesis holds more than " + COLLAPSED_MASS
+        + " of its system's mass); tune α (the posterior scale), or pass --posterior-scale");
+  }
+
+  /**
+   * The paired test of the choice (B) against the recogniser's rank 1 (A) over the scored utterances: paired
+   * bootstrap of the rate difference and the exact sign test ({@link PairedComparison}).
+   */
+  public PairedComparison versusFirst(int resamples, long seed, int threads) {
+    return PairedComparison.of(firstErrorsPerUtterance(), errorsPerUtterance(), referenceTokensPerUtterance(), resamples, seed, threads);
+  }
+
+  /**
+   * The JSON of {@link #versusFirst}: utterances where the choice has fewer errors than rank 1 ({@code better}),
+   * more ({@code worse}) or as many ({@code tied}); the rate difference choice − rank 1 with its paired-bootstrap
+   * 95 % interval; the share of resamples in which each is better; the two-sided sign-test p-value.
+   */
+  public static ObjectNode versusFirstJson(PairedComparison c) {
+    ObjectNode o = JsonNodeFactory.instance.objectNode();
+    o.put("utterances", c.utterances());
+    o.put("better", c.bBetter());
+    o.put("worse", c.aBetter());
+    o.put("tied", c.ties());
+    finite(o, "error_rate_difference", c.difference());
+    finite(o, "difference_ci95_low", c.paired().difference().low());
+    finite(o, "difference_ci95_high", c.paired().difference().high());
+    finite(o, "prob_better", c.paired().probBBetter());
+    finite(o, "prob_worse", c.paired().probABetter());
+    o.put("sign_test_p", JsonOutput.significant(c.signTestP(), P_DIGITS));
+    return o;
+  }
 
   /**
    * The JSON summary.
@@ -138,7 +204,30 @@ public final class RescoreSummary {
 
   /** JSON has no NaN or infinity: an undefined value is null. */
   private static void finite(ObjectNode o, String key, double v) {
-    if (Double.isFinite(v)) o.put(key, new BigDecimal(v).setScale(RATE_DIGITS, RoundingMode.HALF_EVEN)); else o.putNull(key);
+    if (Double.isFinite(v)) o.put(key, JsonOutput.fixed(v, RATE_DIGITS)); else o.putNull(key);
+  }
+
+  /** −1: no system has two kept hypotheses; 1: every system that has holds > {@value #COLLAPSED_MASS} in one; 0: otherwise. */
+  private static int collapseState(UtteranceResult r) {
+    ScoredUtterance s = r.scores();
+    int k = s.systems().size();
+    double[] sum = new double[k];
+    double[] max = new double[k];
+    int[] count = new int[k];
+    for (int i = 0; i < s.size(); i++) {
+      int sys = s.systemIndex(i);
+      double p = r.posteriors()[i];
+      sum[sys] += p;
+      max[sys] = Math.max(max[sys], p);
+      count[sys]++;
+    }
+    int state = -1;
+    for (int sys = 0; sys < k; sys++) {
+      if (count[sys] < 2) continue;
+      if (!(max[sys] > COLLAPSED_MASS * sum[sys])) return 0;
+      state = 1;
+    }
+    return state;
   }
 
   private static void rate(ObjectNode o, String key, long errors, long n) {

@@ -80,6 +80,43 @@ class RescoreCommandTest {
   }
 
   @Test
+  void theSummaryCarriesThePairedTestAgainstRankOne() throws IOException {
+    Path js = dir.resolve("paired.json");
+    Result r = run("rescore", "--hyps", hyps.toString(), "--features", "acoustic,conf", "--refs", refs.toString(),
+        "--weight", "conf=40", "--json", js.toString());
+    assertThat(r.code).as(r.err).isZero();
+    JsonNode j = new ObjectMapper().readTree(js.toFile());
+    JsonNode v = j.get("versus_first");
+    // every scored utterance is better, worse or tied; the difference is the difference of the two rates
+    assertThat(v.get("better").asLong() + v.get("worse").asLong() + v.get("tied").asLong()).isEqualTo(j.get("utterances").asLong());
+    assertThat(v.get("error_rate_difference").asDouble())
+        .isCloseTo(j.get("error_rate").asDouble() - j.get("first_error_rate").asDouble(), org.assertj.core.data.Offset.offset(2e-6));
+    assertThat(v.get("difference_ci95_low").asDouble()).isLessThanOrEqualTo(v.get("difference_ci95_high").asDouble());
+    assertThat(v.get("sign_test_p").asDouble()).isBetween(0.0, 1.0);
+    assertThat(r.err).contains("versus rank 1: better on " + v.get("better").asLong() + ", worse on " + v.get("worse").asLong());
+  }
+
+  @Test
+  void warnsWhenPosteriorsCollapseUnderAPosteriorMethodOnly() throws IOException {
+    // totals 10 nats apart: at α = 1 the best holds 1/(1 + e^−10 + e^−20) > 0.999 of the mass; at α = 0.01 about 0.37
+    StringBuilder h = new StringBuilder("utt_id,rank,text,acoustic\n");
+    for (int u = 0; u < 40; u++)
+      for (int k = 0; k < 3; k++) h.append("u").append(u).append(',').append(k + 1).append(",crates ").append(k).append(',').append(-10 * k).append('\n');
+    Path hyps = java.nio.file.Files.writeString(dir.resolve("gaps.csv"), h.toString());
+    Path js = dir.resolve("collapse.json");
+    Result sharp = run("rescore", "--hyps", hyps.toString(), "--features", "acoustic", "--method", "mbr",
+        "--json", js.toString());
+    assertThat(sharp.code).as(sharp.err).isZero();
+    assertThat(sharp.err).contains("steelyard: warning: posteriors are nearly all 0 or 1");
+    assertThat(new ObjectMapper().readTree(js.toFile()).get("warnings").toString()).contains("--posterior-scale");
+    Result soft = run("rescore", "--hyps", hyps.toString(), "--features", "acoustic", "--method", "mbr",
+        "--posterior-scale", "0.01", "--json", js.toString());
+    assertThat(soft.err).doesNotContain("posteriors are nearly all");
+    Result nbest = run("rescore", "--hyps", hyps.toString(), "--features", "acoustic", "--json", js.toString());
+    assertThat(nbest.err).doesNotContain("posteriors are nearly all");
+  }
+
+  @Test
   void picksKeepHostileTextExactly() throws IOException {
     String nasty = "=SUM(A1),\"crates\"\n+7 <script>x</script>\u200f e\u0301";
     Files.writeString(hyps, "utt_id,rank,text,acoustic\nu1,1,\"" + nasty.replace("\"", "\"\"") + "\",-1\nu1,2,plain,-2\n");
