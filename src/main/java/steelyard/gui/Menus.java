@@ -19,12 +19,9 @@ import steelyard.rescore.RescoreMethod;
 
 /**
  * The menu bar: every action of the window with a mnemonic, most with an accelerator, and a one-line
- * description shown as its tooltip. Actions that need a service not in this build (tuning, the overrule
- * audit, the HTML report) are present but disabled, and say why. EDT only.
+ * description shown as its tooltip. EDT only.
  */
 final class Menus {
-  /** Why the audit and the report are greyed. */
-  static final String NOT_YET = "Not available in this build: it needs the audit service.";
   private static final int CTRL = InputEvent.CTRL_DOWN_MASK;
 
   private final SteelyardWindow w;
@@ -37,9 +34,10 @@ final class Menus {
     this.w = w;
     tune = action("Tune weights…", KeyEvent.VK_T, key(KeyEvent.VK_T, CTRL),
         "Let the tuner find the weights with the fewest errors on these utterances (needs references).", e -> TuneAction.run(w));
-    audit = action("Overrule audit", KeyEvent.VK_A, key(KeyEvent.VK_3, CTRL), NOT_YET, e -> {});
-    report = action("Export HTML report…", KeyEvent.VK_E, key(KeyEvent.VK_E, CTRL), NOT_YET, e -> {});
-    for (Action a : List.of(audit, report)) a.setEnabled(false);
+    audit = action("Overrules", KeyEvent.VK_O, key(KeyEvent.VK_3, CTRL),
+        "Show the overrule audit: where the pick differs from rank 1, why, and how close the call was.", e -> w.views.setSelectedIndex(2));
+    report = action("Export HTML report…", KeyEvent.VK_E, key(KeyEvent.VK_E, CTRL),
+        "Write the figures, charts and overrule audit of the current choice as one self-contained HTML page.", e -> ReportExport.ask(w));
     w.weights.tune.setAction(tune);
     w.weights.tune.setText("Tune…");
   }

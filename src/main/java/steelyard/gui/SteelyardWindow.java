@@ -37,6 +37,7 @@ public final class SteelyardWindow extends JFrame {
   final UtteranceListPanel list = new UtteranceListPanel();
   final UtteranceView detail = new UtteranceView();
   final ChartsView charts = new ChartsView();
+  final AuditView audit = new AuditView();
   final WeightsPanel weights = new WeightsPanel();
   final StatusBar status = new StatusBar();
   final JTabbedPane views = new JTabbedPane();
@@ -45,6 +46,7 @@ public final class SteelyardWindow extends JFrame {
   final Tasks tasks = new Tasks(status);
   final WindowPrefs prefs;
   private final ChartRefresher chartRefresher;
+  private final AuditRefresher auditRefresher;
   private final Menus menus;
   private Workspace workspace;
   private WeightSettings settings;
@@ -62,8 +64,10 @@ public final class SteelyardWindow extends JFrame {
     views.setName("views");
     views.addTab("Utterance", detail);
     views.addTab("Charts", charts);
+    views.addTab("Overrules", audit);
     views.setMnemonicAt(0, 'U');
     views.setMnemonicAt(1, 'C');
+    views.setMnemonicAt(2, 'O');
     right = new JSplitPane(JSplitPane.HORIZONTAL_SPLIT, views, weights);
     right.setResizeWeight(1);
     left = new JSplitPane(JSplitPane.HORIZONTAL_SPLIT, list, right);
@@ -80,12 +84,17 @@ public final class SteelyardWindow extends JFrame {
     content.add(status, BorderLayout.SOUTH);
     setContentPane(content);
     chartRefresher = new ChartRefresher(this);
+    auditRefresher = new AuditRefresher(this);
+    audit.onOpen(this::openById);
     menus = new Menus(this);
     setJMenuBar(menus.bar());
     list.onSelect(this::openUtterance);
     weights.listener(this::weightsChanged);
     weights.reset.addActionListener(e -> resetWeights());
-    views.addChangeListener(e -> chartRefresher.refreshIfVisible());
+    views.addChangeListener(e -> {
+      chartRefresher.refreshIfVisible();
+      auditRefresher.refreshIfVisible();
+    });
     addWindowListener(new WindowAdapter() {
       @Override public void windowClosing(WindowEvent e) {
         close();
@@ -102,6 +111,9 @@ public final class SteelyardWindow extends JFrame {
     Theme.install();
     SteelyardWindow w = new SteelyardWindow(prefs);
     w.setVisible(true);
+    if (prefs.layout("split.right", -1) < 0) {
+      javax.swing.SwingUtilities.invokeLater(() -> w.right.setDividerLocation(w.right.getWidth() - WeightsPanel.WIDTH - w.right.getDividerSize()));
+    }
     if (request != null) w.open(request);
     return w;
   }
@@ -151,6 +163,7 @@ public final class SteelyardWindow extends JFrame {
     open = -1;
     choices = null;
     chartRefresher.invalidate();
+    auditRefresher.invalidate();
     for (String w : ws.warnings()) status.flash("warning: " + w);
     rechoose(false);
   }
@@ -201,7 +214,10 @@ public final class SteelyardWindow extends JFrame {
     list.show(workspace.corpus(), c);
     if (open < 0 && workspace.corpus().size() > 0) list.select(0);
     else if (open >= 0) openUtterance(open);
-    if (!adjusting) chartRefresher.refreshIfVisible();
+    if (!adjusting) {
+      chartRefresher.refreshIfVisible();
+      auditRefresher.refreshIfVisible();
+    }
   }
 
   /** Opens utterance {@code u} in the detail view. */
@@ -211,6 +227,18 @@ public final class SteelyardWindow extends JFrame {
     RescoreWeights w = choices.weights();
     UtteranceResult r = workspace.explain(u, w, choices.method());
     detail.show(workspace, u, r, w, choices);
+  }
+
+  /** Opens the utterance with id {@code id} in the Utterance view. */
+  void openById(String id) {
+    if (workspace == null) return;
+    for (int u = 0; u < workspace.corpus().size(); u++) {
+      if (workspace.corpus().uttId(u).equals(id)) {
+        views.setSelectedIndex(0);
+        list.select(u);
+        return;
+      }
+    }
   }
 
   void saveWeights() {
@@ -244,7 +272,8 @@ public final class SteelyardWindow extends JFrame {
     if (b != null) setBounds(b); else setSize(1500, 920);
     if (b == null) setLocationRelativeTo(null);
     left.setDividerLocation(prefs.layout("split.left", 400));
-    right.setDividerLocation(prefs.layout("split.right", getWidth() - left.getDividerLocation() - WeightsPanel.WIDTH - 16));
+    int savedRight = prefs.layout("split.right", -1);
+    if (savedRight > 0) right.setDividerLocation(savedRight);
     detail.split.setDividerLocation(prefs.layout("split.detail", 380));
     views.setSelectedIndex(Math.max(0, Math.min(views.getTabCount() - 1, prefs.layout("view", 0))));
   }

@@ -75,7 +75,7 @@ public final class UtteranceListPanel extends JPanel {
     Comparator<Integer> ints = Comparator.nullsFirst(Comparator.naturalOrder());
     for (int c : new int[] {2, 3, 4}) sorter.setComparator(c, ints);
     table.setRowSorter(sorter);
-    int[] widths = {96, 56, 50, 40, 34, 118};
+    int[] widths = {86, 52, 56, 40, 32, 104};
     for (int c = 0; c < widths.length; c++) table.getColumnModel().getColumn(c).setPreferredWidth(widths[c]);
     table.setDefaultRenderer(Object.class, new Renderer());
     table.setDefaultRenderer(Integer.class, new Renderer());

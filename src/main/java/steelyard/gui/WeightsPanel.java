@@ -34,9 +34,9 @@ public final class WeightsPanel extends JPanel {
   final WeightControl alpha = new WeightControl("alpha", "α  posterior scale", KeyEvent.VK_P,
       "α multiplies the totals before they become posteriors: small α spreads belief over many hypotheses (MBR and networks).",
       0.001, 10, true, 0.01);
-  final WeightControl lambda2 = new WeightControl("lambda2", "λ′  network LM weight", KeyEvent.VK_N,
+  final WeightControl lambda2 = new WeightControl("lambda2", "λ′  network LM", KeyEvent.VK_N,
       "λ′ weighs the model's log-probability of a path in the confusion-network search.", 0, 10, false, 0.1);
-  final WeightControl mu2 = new WeightControl("mu2", "μ′  network length weight", KeyEvent.VK_W,
+  final WeightControl mu2 = new WeightControl("mu2", "μ′  network length", KeyEvent.VK_W,
       "μ′ is added per token on a path in the confusion-network search.", -10, 10, false, 0.1);
   private final JLabel fixed = new JLabel(" ");
   final JButton reset = new JButton("Reset");
@@ -46,11 +46,12 @@ public final class WeightsPanel extends JPanel {
   private boolean quiet;
 
   /** Width the panel asks for in the window. */
-  static final int WIDTH = 330;
+  static final int WIDTH = 350;
 
   public WeightsPanel() {
     super(new BorderLayout());
     setMinimumSize(new java.awt.Dimension(WIDTH - 40, 200));
+    setPreferredSize(new java.awt.Dimension(WIDTH, 600));
     setBorder(BorderFactory.createEmptyBorder(10, 12, 10, 12));
     JPanel grid = new JPanel(new GridBagLayout());
     JLabel heading = new JLabel("Weights");
@@ -125,7 +126,7 @@ public final class WeightsPanel extends JPanel {
     enableFor(s.method());
     quiet = false;
     for (var c : watchers) c.accept(s);
-    StringBuilder sb = new StringBuilder("<html><body style='width: " + (WIDTH - 80) + "px'>From the weights file: ");
+    StringBuilder sb = new StringBuilder("<html><body style='width: " + (WIDTH - 110) + "px'>Also in effect: ");
     for (Map.Entry<String, Double> f : base.features().entrySet()) sb.append(f.getKey()).append(" × ").append(number(f.getValue())).append(", ");
     sb.append("OOV ω ").append(number(base.oovWeight()));
     if (!base.systemWeights().isEmpty()) sb.append(", systems ").append(base.systemWeights());

@@ -108,6 +108,8 @@ public final class WindowScenario {
     shot("network", window);
     onEdt(() -> { window.detail.lower.setSelectedIndex(0); return null; });
     tune(badFile.resolveSibling("tuned.weights.json"));
+    audit();
+    report(badFile.resolveSibling("window-report.html"));
     menus();
     importDialog(badFile);
     failedOpen(badFile);
@@ -171,6 +173,30 @@ public final class WindowScenario {
     out.setProperty("tuned.lambda", Double.toString(onEdt(() -> window.settings().lmWeight())));
     onEdt(() -> { window.saveWeights(saved); return null; });
     out.setProperty("tuned.weights", saved.toString());
+  }
+
+  /** Shows the overrule audit of the tuned choice, records its counts, opens its first overrule's utterance. */
+  private void audit() throws Exception {
+    onEdt(() -> { window.views.setSelectedIndex(2); return null; });
+    waitUntil("the audit is shown", () -> !window.tasks.busy() && !window.audit.rows().isEmpty());
+    onEdt(() -> {
+      var rows = window.audit.rows();
+      long helped = rows.stream().filter(r -> r.verdict() == steelyard.audit.Verdict.HELPED).count();
+      long hurt = rows.stream().filter(r -> r.verdict() == steelyard.audit.Verdict.HURT).count();
+      out.setProperty("audit.counts", "changed " + rows.size() + "   ▲ helped " + helped + "   ▼ hurt " + hurt);
+      out.setProperty("audit.first", rows.get(0).uttId());
+      window.audit.table().getSelectionModel().setSelectionInterval(0, 0);
+      return null;
+    });
+    shot("audit", window);
+    onEdt(() -> { window.openById(window.audit.rows().get(0).uttId()); return null; });
+    out.setProperty("audit.opened", onEdt(() -> window.workspace().corpus().uttId(window.openUtterance())));
+  }
+
+  private void report(Path target) throws Exception {
+    onEdt(() -> { ReportExport.export(window, target); return null; });
+    waitUntil("the report is written", () -> !window.tasks.busy() && Files.exists(target));
+    out.setProperty("report.file", target.toString());
   }
 
   private static JDialog dialogTitled(String title) {

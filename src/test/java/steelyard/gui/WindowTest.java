@@ -89,13 +89,18 @@ class WindowTest {
     assertThat(afterTuning.get("error_rate").asDouble()).as("tuning never makes the dev error worse")
         .isLessThanOrEqualTo(after.get("error_rate").asDouble());
 
+    assertThat(r.getProperty("tuned.counts")).startsWith(r.getProperty("audit.counts"));
+    assertThat(r.getProperty("audit.opened")).isEqualTo(r.getProperty("audit.first"));
+    String page = Files.readString(Path.of(r.getProperty("report.file")));
+    assertThat(page).contains("<svg").contains("An automatic pick is not a verified transcript").contains(r.getProperty("audit.first"));
+
     assertThat(r.getProperty("import.problems")).isEqualTo(badMessage);
     assertThat(r.getProperty("error.message")).isEqualTo(badMessage);
     assertThat(r.getProperty("error.keptData")).isEqualTo("true");
     assertThat(r.getProperty("menus.withoutMnemonic")).isEmpty();
     assertThat(r.getProperty("prefs.recent")).endsWith("voice-dev.nbest.csv");
     assertThat(r.getProperty("prefs.hasBounds")).isEqualTo("true");
-    for (String view : List.of("utterance", "network", "charts", "tune", "import", "error")) {
+    for (String view : List.of("utterance", "network", "charts", "tune", "audit", "import", "error")) {
       Path png = SHOTS.resolve(view + ".png");
       assertThat(pngWidth(png)).as(view).isGreaterThan(300);
     }

@@ -25,6 +25,14 @@ import steelyard.rescore.WeightsFile;
 import steelyard.rescore.WeightsSpec;
 import steelyard.text.TokenSequence;
 import steelyard.io.InputException;
+import steelyard.audit.AuditAccumulator;
+import steelyard.audit.AuditInput;
+import steelyard.audit.AuditReport;
+import steelyard.audit.AuditSettings;
+import steelyard.audit.OverruleAuditor;
+import steelyard.lm.ModelText;
+import steelyard.rescore.Tokenizer;
+import steelyard.text.Normaliser;
 import steelyard.tune.DevUtterance;
 import steelyard.tune.TuneInput;
 import steelyard.tune.TuneResult;
@@ -39,8 +47,9 @@ import java.util.Set;
  * allocation per hypothesis, fast enough for a slider), {@link #choose} (any method: the session's choice per
  * utterance on all cores, with progress and cancel) and {@link #explain} (one utterance with every term).
  *
- * <p>Thread safety: immutable after {@link #open}; every method may be called from any thread. The lazily
- * built token ids of a {@link ScoredUtterance} (used by MBR) are built under the utterance's lock.
+ * <p>Thread safety: every method may be called from any thread. The lazily built token ids of a
+ * {@link ScoredUtterance} (MBR, the tuner, the audit) are built under the utterance's lock before anything that
+ * extends them runs, so that concurrent choices only read them.
  */
 public final class Workspace {
   private final OpenRequest request;
@@ -50,6 +59,7 @@ public final class Workspace {
   private final List<String> warnings;
   private final int maxHypotheses;
   private volatile List<DevUtterance> devUtterances;
+  private volatile boolean idsBuilt;
 
   Workspace(OpenRequest request, RescoreSession session, ScoredSet set, Corpus corpus, List<String> warnings) {
     this.request = request;
@@ -164,11 +174,9 @@ public final class Workspace {
   public TuneInput tuneInput(RescoreWeights start) {
     List<DevUtterance> dev = devUtterances;
     if (dev == null) {
+      buildTokenIds();
       List<DevUtterance> d = new ArrayList<>();
       for (ScoredSet.Entry e : set.utterances()) {
-        synchronized (e.scores()) {
-          e.scores().tokenIds();
-        }
         if (e.reference() != null) d.add(new DevUtterance(e.scores(), e.reference(), e.group()));
       }
       devUtterances = dev = List.copyOf(d);
@@ -187,9 +195,59 @@ public final class Workspace {
     return Tuner.tune(tuneInput(start), settings, progress::report, progress::isCancelled);
   }
 
+  /**
+   * The overrule audit of the choice under {@code w} and {@code method} ({@link OverruleAuditor}): every
+   * utterance whose pick differs from rank 1 with its verdict, margin, flip weights and decisive n-grams.
+   * Chooses every utterance again (on all cores), then audits in input order.
+   */
+  public AuditReport audit(RescoreWeights w, RescoreMethod method, TaskProgress progress) {
+    buildTokenIds();
+    RescoreSession tried = session.withWeights(w, method);
+    int n = corpus.size();
+    AuditInput[] inputs = new AuditInput[n];
+    AtomicInteger done = new AtomicInteger();
+    IntStream.range(0, n).parallel().forEach(u -> {
+      progress.checkCancelled();
+      inputs[u] = new AuditInput(chooseOne(tried, u), corpus.referenceTokens(u), corpus.group(u));
+      int k = done.incrementAndGet();
+      if ((k & 31) == 0) progress.report(0.5 * k / n, "choosing by " + method.label());
+    });
+    progress.report(0.5, "auditing the overrules");
+    LanguageModel lm = model();
+    Tokenizer lmTokens = null;
+    if (lm != null) {
+      Normaliser text = ModelText.normaliser(lm, request.normalisation().rulesFile());
+      lmTokens = raw -> text.tokens(raw, lm.unit());
+    }
+    OverruleAuditor auditor = new OverruleAuditor(AuditSettings.of(corpus.featureNames(), corpus.unit(), lm, lmTokens,
+        method.usesNetwork() ? w.latticeSettings() : null));
+    AuditAccumulator acc = auditor.accumulator();
+    for (int u = 0; u < n; u++) {
+      progress.checkCancelled();
+      acc.add(inputs[u], auditor.audit(inputs[u]));
+      if ((u & 31) == 0) progress.report(0.5 + 0.5 * u / n, "auditing the overrules");
+    }
+    return acc.finish();
+  }
+
   /** Writes {@code w} as a weights file (with the unit and, for a model file, its identity). */
   public void saveWeights(Path target, RescoreWeights w) {
     WeightsFile.save(target, WeightsSpec.of(w, corpus.unit(), session.modelIdentity()));
+  }
+
+  /**
+   * Builds every utterance's lazily built token ids under its lock, once: the tuner and the audit extend an
+   * utterance's vocabulary from their threads, and a choice on another thread must then only read the ids.
+   */
+  private void buildTokenIds() {
+    if (idsBuilt) return;
+    for (int u = 0; u < corpus.size(); u++) {
+      ScoredUtterance s = corpus.scored(u);
+      synchronized (s) {
+        s.tokenIds();
+      }
+    }
+    idsBuilt = true;
   }
 
   /** The session's choice of one utterance (MBR's token ids built under the utterance's lock first). */

@@ -133,6 +133,26 @@ class ViewModelTest {
   }
 
   @Nested
+  class OverruleTable {
+    @Test
+    void theOneOverruleFlipsBackExactlyWhereTheHandWorkedLinesCross() {
+      var report = w.audit(TinyCorpus.at(w, 0.1, 0), RescoreMethod.NBEST, TaskProgress.NONE);
+      List<OverruleRow> rows = OverruleRow.of(report);
+      assertThat(rows).extracting(OverruleRow::uttId, OverruleRow::verdict, OverruleRow::firstErrors, OverruleRow::pickErrors,
+          OverruleRow::flipExact).containsExactly(org.assertj.core.groups.Tuple.tuple("b", steelyard.audit.Verdict.HELPED, 1L, 0L, true));
+      OverruleRow b = rows.get(0);
+      // margin: total(day nine) − total(bay nine) = 0.5 − λ·ln 10 at λ = 0.1
+      assertThat(b.margin()).isCloseTo(0.5 - 0.1 * LN10, within(1e-5));
+      assertThat(b.flipLow()).isEqualTo(Double.NEGATIVE_INFINITY);
+      assertThat(b.flipHigh()).isCloseTo(TinyCorpus.FLIP, within(1e-6));
+      assertThat(b.returnWeight()).isCloseTo(TinyCorpus.FLIP, within(1e-6));
+      // the only differing token: ln P(day) − ln P(bay) = (−2 − (−1))·ln 10
+      assertThat(b.topNgram()).isEqualTo(String.format(java.util.Locale.ROOT, "\"day\" %+.2f", -LN10));
+      assertThat(report.total().netErrorChange()).isEqualTo(report.firstErrors() - report.chosenErrors()).isEqualTo(1);
+    }
+  }
+
+  @Nested
   class Charts {
     @Test
     void errorAndHelpedAlongLambdaStepExactlyAtTheFlipWeight() {
