@@ -192,7 +192,11 @@ public final class SteelyardWindow extends JFrame {
     else status.flash("release to re-choose by " + FiguresBand.methodName(s.method()));
   }
 
-  /** Re-chooses under the current settings: at once for N-best, else as a background task. */
+  /**
+   * Re-chooses under the current settings: at once for N-best, else as a background task. While a slider is
+   * dragged ({@code adjusting}) the band and the open utterance follow every step; the list and the charts
+   * follow when it is released.
+   */
   void rechoose(boolean adjusting) {
     RescoreWeights w = currentWeights();
     RescoreMethod m = settings.method();
@@ -211,7 +215,7 @@ public final class SteelyardWindow extends JFrame {
     choices = c;
     band.show(c.figures(), c.method(), workspace.corpus().unit(),
         workspace.request().hyps().getFileName() + " · " + workspace.corpus().size() + " utterances");
-    list.show(workspace.corpus(), c);
+    if (!adjusting || list.table().getRowCount() == 0) list.show(workspace.corpus(), c);
     if (open < 0 && workspace.corpus().size() > 0) list.select(0);
     else if (open >= 0) openUtterance(open);
     if (!adjusting) {
@@ -260,7 +264,8 @@ public final class SteelyardWindow extends JFrame {
     }
   }
 
-  void close() {
+  /** Saves the layout, stops the background tasks and closes the window. */
+  public void close() {
     saveLayout();
     tasks.shutdown();
     dispose();

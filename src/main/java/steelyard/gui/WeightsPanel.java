@@ -31,7 +31,7 @@ public final class WeightsPanel extends JPanel {
       "λ multiplies the domain model's natural-log probability of the whole transcript: higher trusts the model more.", 0, 40, false, 0.5);
   final WeightControl mu = new WeightControl("mu", "μ  length weight", KeyEvent.VK_G,
       "μ is added once per token: positive favours longer transcripts, negative shorter ones.", -20, 20, false, 0.5);
-  final WeightControl alpha = new WeightControl("alpha", "α  posterior scale", KeyEvent.VK_P,
+  final WeightControl alpha = new WeightControl("alpha", "α  posterior sharpness", KeyEvent.VK_P,
       "α multiplies the totals before they become posteriors: small α spreads belief over many hypotheses (MBR and networks).",
       0.001, 10, true, 0.01);
   final WeightControl lambda2 = new WeightControl("lambda2", "λ′  network LM", KeyEvent.VK_N,

@@ -39,7 +39,7 @@ import steelyard.text.NormalisationOptions;
  */
 public final class WindowScenario {
   private static final long WAIT_MS = 90_000;
-  /** The posterior scale of the consensus step (spreads the posteriors, so the network shows competition). */
+  /** The posterior sharpness α of the consensus step (spreads the posteriors, so the network shows competition). */
   static final double CONSENSUS_ALPHA = 0.05;
   private final Properties out = new Properties();
   private final Path shots;

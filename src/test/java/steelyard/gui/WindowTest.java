@@ -198,7 +198,7 @@ class WindowTest {
     int code = Main.run("rescore", "--hyps", data.resolve("voice-dev.nbest.csv").toString(), "--refs", data.resolve("voice-dev.refs.csv").toString(),
         "--rules", data.resolve("voice.rules").toString(), "--lm", models.resolve("voice-3gram.arpa.gz").toString(),
         "--weights", models.resolve("voice-demo.weights.json").toString(), "--features", "acoustic,lm", "--lm-weight", Double.toString(lambda),
-        "--method", method, "--posterior-scale", Double.toString(alpha),
+        "--method", method, "--posterior-sharpness", Double.toString(alpha),
         "--out", out.resolve("picks.csv").toString(), "--json", out.resolve("summary.json").toString());
     assertThat(code).isZero();
     RUNS.put(key, out);

@@ -20,7 +20,7 @@ public record WeightSettings(
 
   public WeightSettings {
     if (!(posteriorScale > 0) || !Double.isFinite(posteriorScale))
-      throw new IllegalArgumentException("posterior scale must be finite and > 0: " + posteriorScale);
+      throw new IllegalArgumentException("posterior sharpness must be finite and > 0: " + posteriorScale);
   }
 
   /** The settings that {@code w} states. */

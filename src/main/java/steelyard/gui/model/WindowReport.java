@@ -47,7 +47,7 @@ public final class WindowReport {
     out.add(new ReportModel.WeightRow("LM weight λ", w.lmWeight(), ""));
     out.add(new ReportModel.WeightRow("OOV weight ω", w.oovWeight(), ""));
     out.add(new ReportModel.WeightRow("length weight μ", w.lengthWeight(), ""));
-    out.add(new ReportModel.WeightRow("posterior scale α", w.posteriorScale(), ""));
+    out.add(new ReportModel.WeightRow("posterior sharpness α", w.posteriorScale(), ""));
     out.add(new ReportModel.WeightRow("network LM weight λ′", w.latticeLmWeight(), ""));
     out.add(new ReportModel.WeightRow("network length weight μ′", w.latticeLengthWeight(), ""));
     return out;

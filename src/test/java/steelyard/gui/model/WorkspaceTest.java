@@ -60,7 +60,7 @@ class WorkspaceTest {
     Path json = dir.resolve("summary-" + method + ".json");
     int code = Main.run("rescore", "--hyps", hyps.toString(), "--refs", refs.toString(), "--lm", lm.toString(),
         "--features", "acoustic,conf:linear", "--method", method, "--lm-weight", Double.toString(lambda),
-        "--length-weight", Double.toString(mu), "--posterior-scale", Double.toString(alpha),
+        "--length-weight", Double.toString(mu), "--posterior-sharpness", Double.toString(alpha),
         "--lattice-lm-weight", Double.toString(lambda2), "--lattice-length-weight", Double.toString(mu2),
         "--json", json.toString(), "--threads", "1");
     assertThat(code).isZero();
