@@ -3,7 +3,6 @@ package steelyard.gui;
 import java.awt.BorderLayout;
 import java.awt.Dimension;
 import java.awt.Graphics;
-import java.awt.Rectangle;
 import java.awt.event.WindowAdapter;
 import java.awt.event.WindowEvent;
 import java.nio.file.Path;
@@ -272,9 +271,9 @@ public final class SteelyardWindow extends JFrame {
   }
 
   private void restoreLayout() {
-    Rectangle b = prefs.bounds();
+    WindowPrefs.Bounds b = prefs.bounds();
     setMinimumSize(new Dimension(900, 600));
-    if (b != null) setBounds(b); else setSize(1500, 920);
+    if (b != null) setBounds(b.x(), b.y(), b.width(), b.height()); else setSize(1500, 920);
     if (b == null) setLocationRelativeTo(null);
     left.setDividerLocation(prefs.layout("split.left", 400));
     int savedRight = prefs.layout("split.right", -1);
@@ -284,7 +283,7 @@ public final class SteelyardWindow extends JFrame {
   }
 
   private void saveLayout() {
-    prefs.bounds(getBounds());
+    prefs.bounds(new WindowPrefs.Bounds(getX(), getY(), getWidth(), getHeight()));
     prefs.putLayout("split.left", left.getDividerLocation());
     prefs.putLayout("split.right", right.getDividerLocation());
     prefs.putLayout("split.detail", detail.split.getDividerLocation());

@@ -1,6 +1,5 @@
 package steelyard.gui;
 
-import java.awt.Rectangle;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -64,18 +63,21 @@ public final class WindowPrefs {
     flush();
   }
 
+  /** Window bounds in screen pixels (a plain record, so that reading preferences never starts AWT). */
+  public record Bounds(int x, int y, int width, int height) {}
+
   /** The saved window bounds, or null. */
-  public Rectangle bounds() {
+  public Bounds bounds() {
     int w = node.getInt("bounds.w", -1);
     if (w <= 0) return null;
-    return new Rectangle(node.getInt("bounds.x", 0), node.getInt("bounds.y", 0), w, node.getInt("bounds.h", 700));
+    return new Bounds(node.getInt("bounds.x", 0), node.getInt("bounds.y", 0), w, node.getInt("bounds.h", 700));
   }
 
-  public void bounds(Rectangle r) {
-    node.putInt("bounds.x", r.x);
-    node.putInt("bounds.y", r.y);
-    node.putInt("bounds.w", r.width);
-    node.putInt("bounds.h", r.height);
+  public void bounds(Bounds r) {
+    node.putInt("bounds.x", r.x());
+    node.putInt("bounds.y", r.y());
+    node.putInt("bounds.w", r.width());
+    node.putInt("bounds.h", r.height());
   }
 
   /** A saved integer of the layout (divider positions, selected tab), or {@code fallback}. */
