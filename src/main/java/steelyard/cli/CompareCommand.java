@@ -15,6 +15,8 @@ import steelyard.eval.MissingHypothesisPolicy;
 import steelyard.eval.PairedComparison;
 import steelyard.eval.Pick;
 import steelyard.eval.SystemFilter;
+import steelyard.history.InputFile;
+import steelyard.history.RunRecord;
 import steelyard.io.HypothesesReader;
 import steelyard.io.ImportOptions;
 import steelyard.io.InputException;
@@ -55,6 +57,7 @@ public final class CompareCommand implements Callable<Integer> {
 
   @Mixin NormalisationInput normalisation;
   @Mixin RunInput run;
+  @Mixin HistoryOption history;
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
   @Mixin ReferencesInput references;
@@ -81,8 +84,7 @@ public final class CompareCommand implements Callable<Integer> {
       throw InputException.option("--systems", "needs one --hyps file and two distinct system names, got " + hyps.size()
           + " file(s) and '" + String.join(",", systems) + "'", "--hyps FILE --systems A,B");
     List<String> display = names != null ? names : systems != null ? systems : List.of("A", "B");
-    if (display.size() != 2 || display.get(0).isBlank() || display.get(1).isBlank() || display.get(0).equals(display.get(1)))
-      throw InputException.option("--names", "'" + String.join(",", display) + "' is not two distinct names", "two names such as baseline,tuned");
+    checkNames(display);
     ScoreCommand.checkOptions(pick, resamples, 0);
     LinkedHashMap<String, Path> outputs = new LinkedHashMap<>();
     outputs.put("--json", json.file);
@@ -99,8 +101,9 @@ public final class CompareCommand implements Callable<Integer> {
     CorpusScorer scorer = new CorpusScorer(raw -> normaliser.tokens(raw, unit), new CorpusScorer.Settings(pick, missing, 0, false));
     Path fileA = hyps.get(0);
     Path fileB = systems == null ? hyps.get(1) : hyps.get(0);
-    CorpusScore a = scoreFile(scorer, refMap, fileA, systems == null ? null : systems.get(0), options);
-    CorpusScore b = scoreFile(scorer, refMap, fileB, systems == null ? null : systems.get(1), options);
+    long[] hypRows = new long[2];
+    CorpusScore a = scoreFile(scorer, refMap, fileA, systems == null ? null : systems.get(0), options, hypRows, 0);
+    CorpusScore b = scoreFile(scorer, refMap, fileB, systems == null ? null : systems.get(1), options, hypRows, 1);
     PairedComparison comparison = PairedComparison.of(a, b, resamples, run.seed, run.effectiveThreads());
     CompareReport.CompareRun report = new CompareReport.CompareRun(refs.toString(), unit, normaliser.describe(),
         new CompareReport.SystemRun(display.get(0), label(fileA, 0), a),
@@ -109,7 +112,23 @@ public final class CompareCommand implements Callable<Integer> {
 
     json.write(CompareReport.json(report), spec.commandLine().getOut());
     ScoreCommand.printReport(spec, json.file, CompareReport.text(report));
+    history.record(recorded(display.get(0), fileA, hypRows[0], a, warnings, normaliser, refMap.size()),
+        recorded(display.get(1), fileB, hypRows[1], b, warnings, normaliser, refMap.size()));
     return Main.OK;
+  }
+
+  /** Refuses display names that are not two distinct, non-blank names. */
+  static void checkNames(List<String> display) {
+    if (display.size() != 2 || display.get(0).isBlank() || display.get(1).isBlank() || display.get(0).equals(display.get(1)))
+      throw InputException.option("--names", "'" + String.join(",", display) + "' is not two distinct names", "two names such as baseline,tuned");
+  }
+
+  // One compared system as a run of its own, labelled with its display name; its interval is computed only when recorded.
+  private RunRecord.Builder recorded(
+      String name, Path file, long hypRows, CorpusScore score, List<String> warnings, Normaliser normaliser, int refRows) {
+    return history.run().label(name).warnings(warnings).scored(score).bootstrap(resamples, run.seed, run.effectiveThreads())
+        .unit(normalisation.unit, normaliser.describe()).input(InputFile.HYPOTHESES, file, hypRows)
+        .input(InputFile.REFERENCES, references.refs, refRows).input(InputFile.RULES, normalisation.rules, InputFile.UNKNOWN_ROWS);
   }
 
   // The file, with the system when one file holds both: "dockets.csv system=line-gray".
@@ -117,12 +136,15 @@ public final class CompareCommand implements Callable<Integer> {
     return systems == null ? file.toString() : file + " system=" + systems.get(which);
   }
 
-  private static CorpusScore scoreFile(
-      CorpusScorer scorer, LinkedHashMap<String, Reference> refMap, Path file, String system, ImportOptions options) {
+  // Scores one system; the rows read from its file go to rowsRead[which].
+  private static CorpusScore scoreFile(CorpusScorer scorer, LinkedHashMap<String, Reference> refMap, Path file, String system,
+      ImportOptions options, long[] rowsRead, int which) {
     try (HypothesesReader reader = HypothesesReader.open(file, options)) {
       if (system != null && !reader.hasSystemColumn())
         throw InputException.inFile(file, "--systems needs a 'system' column, which this file does not have", "a column named system");
-      return scorer.score(refMap, system == null ? reader : new SystemFilter(reader, system));
+      CorpusScore score = scorer.score(refMap, system == null ? reader : new SystemFilter(reader, system));
+      rowsRead[which] = reader.rowsRead();
+      return score;
     }
   }
 }

@@ -25,6 +25,7 @@ import steelyard.io.InputException;
       LmCommand.class,
       RescoreCommand.class,
       NetworkCommand.class,
+      RunsCommand.class,
       DemoDataCommand.class,
       GuiCommand.class,
       CommandLine.HelpCommand.class

@@ -24,7 +24,6 @@ import steelyard.lattice.ConfusionNetwork;
 import steelyard.lattice.LatticeChoice;
 import steelyard.lattice.NetworkExport;
 import steelyard.report.OutputPaths;
-import steelyard.rescore.RescoreConfig;
 import steelyard.rescore.RescoreMethod;
 import steelyard.rescore.RescoreSession;
 import steelyard.rescore.RescoreWeights;
@@ -80,17 +79,8 @@ public final class NetworkCommand implements Callable<Integer> {
     PrintWriter err = spec.commandLine().getErr();
     PrintWriter out = spec.commandLine().getOut();
     // Consensus builds the same network as the lattice search; the search (and so the model) is needed only for --kbest.
-    RescoreSession session = RescoreSession.open(RescoreConfig.builder()
-        .features(input.featureSpecs())
-        .weightsFile(weightOptions.weightsFile)
-        .overrides(weightOptions.spec())
-        .modelPath(model.lm)
-        .modelLoading(model.sessionLoading(err))
-        .normalisation(normalisation.options())
-        .unit(spec.commandLine().getParseResult().hasMatchedOption("--unit") ? normalisation.unit : null)
-        .method(kbest > 0 ? RescoreMethod.LATTICE : RescoreMethod.CONSENSUS)
-        .importOptions(input.importOptions(err))
-        .build());
+    RescoreSession session = RescoreSession.open(RescoreSupport.config(spec, input, normalisation, model, weightOptions)
+        .method(kbest > 0 ? RescoreMethod.LATTICE : RescoreMethod.CONSENSUS).build());
     session.warnings().forEach(w -> RescoreSupport.warn(err, w));
     ScoredUtterance s = session.score(find(session));
     UtteranceResult r = session.choose(s);

@@ -13,7 +13,6 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import steelyard.io.InputException;
 import steelyard.report.OutputPaths;
-import steelyard.rescore.RescoreConfig;
 import steelyard.rescore.RescoreMethod;
 import steelyard.rescore.RescoreRun;
 import steelyard.rescore.RescoreSession;
@@ -70,18 +69,8 @@ public final class RescoreCommand implements Callable<Integer> {
     OutputPaths.refuseClashes(outputs, Arrays.asList(input.hyps, model.lm, references.refs, weightOptions.weightsFile, normalisation.rules));
 
     PrintWriter err = spec.commandLine().getErr();
-    RescoreSession session = RescoreSession.open(RescoreConfig.builder()
-        .features(input.featureSpecs())
-        .weightsFile(weightOptions.weightsFile)
-        .overrides(weightOptions.spec())
-        .modelPath(model.lm)
-        .modelLoading(model.sessionLoading(err))
-        .normalisation(normalisation.options())
-        .unit(spec.commandLine().getParseResult().hasMatchedOption("--unit") ? normalisation.unit : null)
-        .method(method)
-        .maxHyps(maxHyps)
-        .importOptions(input.importOptions(err))
-        .build());
+    RescoreSession session = RescoreSession.open(
+        RescoreSupport.config(spec, input, normalisation, model, weightOptions).method(method).maxHyps(maxHyps).build());
     session.warnings().forEach(w -> RescoreSupport.warn(err, w));
     RescoreRun.Result result = RescoreRun.run(session, input.hyps, references.refs, new RescoreRun.Outputs(picks, breakdown, json.file, saveWeights),
         run.effectiveThreads(), run.seed, input.skipped(), spec.commandLine().getOut());

@@ -6,12 +6,32 @@ import steelyard.eval.EditCounts;
 import steelyard.eval.PairedComparison;
 import steelyard.report.Numbers;
 import steelyard.rescore.RescoreRun;
+import picocli.CommandLine.Model.CommandSpec;
+import steelyard.rescore.RescoreConfig;
 import steelyard.rescore.RescoreMethod;
 import steelyard.rescore.RescoreSummary;
 
 /** Printing shared by the rescoring commands: warnings and the stderr summary. */
 final class RescoreSupport {
   private RescoreSupport() {}
+
+  /**
+   * The configuration the rescoring options describe (features, weights layers, model, normalisation; the unit
+   * only when {@code --unit} was given, else inferred); the caller adds method and hypothesis cap.
+   */
+  static RescoreConfig.Builder config(CommandSpec spec, HypothesesInput input, NormalisationInput normalisation,
+      LmModelInput model, RescoreWeightOptions weights) {
+    PrintWriter err = spec.commandLine().getErr();
+    return RescoreConfig.builder()
+        .features(input.featureSpecs())
+        .weightsFile(weights.weightsFile)
+        .overrides(weights.spec())
+        .modelPath(model.lm)
+        .modelLoading(model.sessionLoading(err))
+        .normalisation(normalisation.options())
+        .unit(spec.commandLine().getParseResult().hasMatchedOption("--unit") ? normalisation.unit : null)
+        .importOptions(input.importOptions(err));
+  }
 
   static void warn(PrintWriter err, String message) {
     err.println("steelyard: warning: " + message);

@@ -17,6 +17,7 @@ import steelyard.eval.CorpusScorer;
 import steelyard.eval.MissingHypothesisPolicy;
 import steelyard.eval.Pick;
 import steelyard.eval.SystemFilter;
+import steelyard.history.InputFile;
 import steelyard.io.AtomicOutput;
 import steelyard.io.HypothesesReader;
 import steelyard.io.ImportOptions;
@@ -49,6 +50,7 @@ public final class ScoreCommand implements Callable<Integer> {
   @Mixin HypothesesInput hypotheses;
   @Mixin NormalisationInput normalisation;
   @Mixin RunInput run;
+  @Mixin HistoryOption history;
   @CommandLine.Spec CommandLine.Model.CommandSpec spec;
 
   @Mixin ReferencesInput references;
@@ -102,10 +104,12 @@ public final class ScoreCommand implements Callable<Integer> {
     CorpusScorer scorer = new CorpusScorer(raw -> normaliser.tokens(raw, unit),
         new CorpusScorer.Settings(pick, missing, top, csv != null));
     CorpusScore score;
+    long hypRows;
     try (HypothesesReader reader = HypothesesReader.open(hypotheses.hyps, options)) {
       if (system != null && !reader.hasSystemColumn())
         throw InputException.inFile(hypotheses.hyps, "--system needs a 'system' column, which this file does not have", "a column named system");
       score = scorer.score(refMap, system == null ? reader : new SystemFilter(reader, system));
+      hypRows = reader.rowsRead();
     }
     Bootstrap.Interval ci = Bootstrap.corpusRate(score.table().includedErrors(), score.table().includedReferenceTokens(),
         resamples, run.seed, run.effectiveThreads());
@@ -118,6 +122,9 @@ public final class ScoreCommand implements Callable<Integer> {
     if (csv != null) AtomicOutput.writeText(csv, stdout, out -> ScoreReport.csv(score, out, spreadsheetSafe));
     json.write(ScoreReport.json(score, context), stdout);
     printReport(spec, OutputPaths.isStdout(csv) ? csv : json.file, ScoreReport.text(score, context));
+    history.record(history.run().warnings(warnings).scored(score).interval(ci, resamples, run.seed).unit(unit, normaliser.describe())
+        .label(system).input(InputFile.HYPOTHESES, hypotheses.hyps, hypRows).input(InputFile.REFERENCES, refs, refMap.size())
+        .input(InputFile.RULES, normalisation.rules, InputFile.UNKNOWN_ROWS));
     return Main.OK;
   }
 

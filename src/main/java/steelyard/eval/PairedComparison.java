@@ -48,7 +48,7 @@ public record PairedComparison(
   /**
    * Compares two scores made from the same reference map (so their table rows line up). The common set is the
    * utterances included in both (under {@link MissingHypothesisPolicy#EXCLUDE} an utterance missing from either
-   * system drops out of the comparison).
+   * system drops out of the comparison), in reference-file order.
    */
   public static PairedComparison of(CorpusScore a, CorpusScore b, int resamples, long seed, int threads) {
     UtteranceScores ta = a.table();
@@ -68,29 +68,30 @@ public record PairedComparison(
   }
 
   /**
-   * Compares two systems' per-utterance error counts on the same utterances ({@code errorsA[i]},
-   * {@code errorsB[i]} and {@code refTokens[i]} belong to utterance i).
+   * Compares two systems on a common set given as parallel per-utterance arrays (errors S + D + I of A and of B,
+   * reference tokens N), in the order the resampling draws from: the statistics {@code compare} reports. Same
+   * arrays, resamples and seed give the same result whatever the thread count.
    */
-  public static PairedComparison of(int[] errorsA, int[] errorsB, int[] refTokens, int resamples, long seed, int threads) {
-    if (errorsA.length != refTokens.length || errorsB.length != refTokens.length)
-      throw new IllegalArgumentException("need one error count per utterance for both systems: " + refTokens.length);
+  public static PairedComparison of(int[] errA, int[] errB, int[] ref, int resamples, long seed, int threads) {
+    if (errA.length != ref.length || errB.length != ref.length)
+      throw new IllegalArgumentException("array lengths differ: " + errA.length + ", " + errB.length + ", " + ref.length);
     long sumA = 0;
     long sumB = 0;
     long n = 0;
     int aBetter = 0;
     int bBetter = 0;
-    for (int i = 0; i < refTokens.length; i++) {
-      sumA += errorsA[i];
-      sumB += errorsB[i];
-      n += refTokens[i];
-      if (errorsA[i] < errorsB[i]) aBetter++;
-      if (errorsB[i] < errorsA[i]) bBetter++;
+    for (int u = 0; u < ref.length; u++) {
+      sumA += errA[u];
+      sumB += errB[u];
+      n += ref[u];
+      if (errA[u] < errB[u]) aBetter++;
+      if (errB[u] < errA[u]) bBetter++;
     }
     // One seed for all three analyses: each sees the same resampled utterance sets.
-    Bootstrap.Interval ia = Bootstrap.corpusRate(errorsA, refTokens, resamples, seed, threads);
-    Bootstrap.Interval ib = Bootstrap.corpusRate(errorsB, refTokens, resamples, seed, threads);
-    Bootstrap.Paired p = Bootstrap.paired(errorsA, errorsB, refTokens, resamples, seed, threads);
-    int ties = refTokens.length - aBetter - bBetter;
-    return new PairedComparison(refTokens.length, n, sumA, sumB, ia, ib, p, aBetter, bBetter, ties, SignTest.twoSidedP(aBetter, bBetter));
+    Bootstrap.Interval ia = Bootstrap.corpusRate(errA, ref, resamples, seed, threads);
+    Bootstrap.Interval ib = Bootstrap.corpusRate(errB, ref, resamples, seed, threads);
+    Bootstrap.Paired p = Bootstrap.paired(errA, errB, ref, resamples, seed, threads);
+    int ties = ref.length - aBetter - bBetter;
+    return new PairedComparison(ref.length, n, sumA, sumB, ia, ib, p, aBetter, bBetter, ties, SignTest.twoSidedP(aBetter, bBetter));
   }
 }

@@ -13,6 +13,7 @@ import steelyard.audit.Overrule;
 import steelyard.audit.PathComparison;
 import steelyard.audit.ScoreBreakdown;
 import steelyard.eval.TokenTally;
+import steelyard.io.JsonOutput;
 import steelyard.rescore.RescoreMethod;
 import steelyard.text.Normaliser;
 import steelyard.text.Unit;

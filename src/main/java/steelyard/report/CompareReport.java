@@ -5,7 +5,10 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.util.ArrayList;
 import java.util.List;
 import steelyard.eval.CorpusScore;
+import steelyard.eval.EditCounts;
+import steelyard.eval.MissingHypothesisPolicy;
 import steelyard.eval.PairedComparison;
+import steelyard.eval.Pick;
 import steelyard.io.JsonOutput;
 import steelyard.io.SkippedRow;
 import steelyard.text.Unit;
@@ -19,9 +22,52 @@ public final class CompareReport {
    *
    * @param name           display name (from {@code --names}, else A and B)
    * @param hypothesesFile its hypotheses file as given
-   * @param score          its own score over every reference
+   * @param score          what the report states of its own score over every reference
    */
-  public record SystemRun(String name, String hypothesesFile, CorpusScore score) {}
+  public record SystemRun(String name, String hypothesesFile, SystemScore score) {
+    /** A system scored from its files just now. */
+    public SystemRun(String name, String hypothesesFile, CorpusScore score) {
+      this(name, hypothesesFile, SystemScore.of(score));
+    }
+  }
+
+  /**
+   * The part of one system's {@link CorpusScore} the comparison report shows, so that a comparison can also be
+   * rendered from stored per-utterance counts (the run history).
+   *
+   * @param pick                which hypothesis was scored per utterance
+   * @param missingPolicy       how utterances without a hypothesis were counted
+   * @param totals              summed C/S/D/I over the included utterances
+   * @param utterances          included utterances
+   * @param sentencesWithErrors included utterances with at least one error
+   * @param missingHypotheses   ids of references with no hypothesis, in reference-file order
+   * @param missingReferences   ids of hypothesis utterances with no reference
+   * @param warnings            the scorer's warnings
+   */
+  public record SystemScore(
+      Pick pick, MissingHypothesisPolicy missingPolicy, EditCounts totals, int utterances, int sentencesWithErrors,
+      List<String> missingHypotheses, List<String> missingReferences, List<String> warnings) {
+    public SystemScore {
+      missingHypotheses = List.copyOf(missingHypotheses);
+      missingReferences = List.copyOf(missingReferences);
+      warnings = List.copyOf(warnings);
+    }
+
+    public static SystemScore of(CorpusScore s) {
+      return new SystemScore(s.pick(), s.missingPolicy(), s.totals(), s.utterances(), s.sentencesWithErrors(),
+          s.missingHypotheses(), s.missingReferences(), s.warnings());
+    }
+
+    /** Corpus error rate; NaN when N = 0. */
+    public double errorRate() {
+      return totals.errorRate();
+    }
+
+    /** Share of included utterances with at least one error; NaN when none is included. */
+    public double sentenceErrorRate() {
+      return utterances == 0 ? Double.NaN : (double) sentencesWithErrors / utterances;
+    }
+  }
 
   /**
    * Everything the comparison report states.
@@ -90,7 +136,7 @@ public final class CompareReport {
   }
 
   private static void system(ObjectNode o, SystemRun s) {
-    CorpusScore sc = s.score();
+    SystemScore sc = s.score();
     o.put("name", s.name());
     o.put("hypotheses_file", s.hypothesesFile());
     o.put("utterances", sc.utterances());
@@ -131,7 +177,7 @@ public final class CompareReport {
     ScoreText.line(sb, "  per utterance: " + b + " better on " + c.bBetter() + ", " + a + " better on " + c.aBetter()
         + ", equal on " + c.ties() + "; exact two-sided sign test p " + Numbers.pValue(c.signTestP()) + " (ties dropped)");
     for (SystemRun s : List.of(r.a(), r.b())) {
-      CorpusScore sc = s.score();
+      SystemScore sc = s.score();
       if (!sc.missingHypotheses().isEmpty())
         ScoreText.line(sb, "  " + s.name() + ": " + sc.missingHypotheses().size() + " reference utterance(s) without a hypothesis ("
             + ScoreReport.policyWording(sc.missingPolicy()) + "): " + ReportText.ids(sc.missingHypotheses()));

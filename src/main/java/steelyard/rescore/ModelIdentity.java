@@ -1,13 +1,7 @@
 package steelyard.rescore;
 
-import java.io.IOException;
-import java.io.InputStream;
-import java.nio.file.Files;
 import java.nio.file.Path;
-import java.security.MessageDigest;
-import java.security.NoSuchAlgorithmException;
-import java.util.HexFormat;
-import steelyard.io.InputException;
+import steelyard.io.FileDigest;
 
 /**
  * Which language model a set of weights was tuned with, so that applying them with another model can be
@@ -22,20 +16,8 @@ public record ModelIdentity(String file, int order, long bytes, String sha256) {
 
   /** Reads the model file once to compute its size and digest. */
   public static ModelIdentity of(Path file, int order) {
-    try (InputStream in = Files.newInputStream(file)) {
-      MessageDigest md = MessageDigest.getInstance("SHA-256");
-      byte[] buf = new byte[1 << 16];
-      long total = 0;
-      for (int n; (n = in.read(buf)) > 0; ) {
-        md.update(buf, 0, n);
-        total += n;
-      }
-      return new ModelIdentity(file.getFileName().toString(), order, total, HexFormat.of().formatHex(md.digest()));
-    } catch (IOException e) {
-      throw InputException.inFile(file, "cannot read the model file (" + e.getMessage() + ")", "a readable file").withCause(e);
-    } catch (NoSuchAlgorithmException e) {
-      throw new IllegalStateException("SHA-256 is required by every Java platform", e);
-    }
+    FileDigest d = FileDigest.of(file);
+    return new ModelIdentity(file.getFileName().toString(), order, d.bytes(), d.sha256());
   }
 
   /** Same model bytes (the file name may differ). */

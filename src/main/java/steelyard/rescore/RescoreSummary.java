@@ -130,7 +130,7 @@ public final class RescoreSummary {
     if (!posteriorsCollapsed()) return List.of();
     return List.of("posteriors are nearly all 0 or 1 (in " + collapsed + " of " + posteriorUtterances
         + " utterances one hypothesis holds more than " + COLLAPSED_MASS
-        + " of its system's mass); tune α (the posterior scale), or pass --posterior-scale");
+        + " of its system's mass); tune α (the posterior sharpness), or pass --posterior-sharpness");
   }
 
   /**

@@ -3,8 +3,6 @@ package steelyard.cli;
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.io.IOException;
-import java.io.PrintWriter;
-import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.LinkedHashMap;
@@ -34,13 +32,8 @@ class OldSpellingsTest {
   }
 
   static Run run(String... args) {
-    CommandLine cl = Main.commandLine();
-    StringWriter out = new StringWriter();
-    StringWriter err = new StringWriter();
-    cl.setOut(new PrintWriter(out, true));
-    cl.setErr(new PrintWriter(err, true));
-    int code = cl.execute(args);
-    return new Run(code, out.toString(), err.toString());
+    ScoreCommandTest.Result r = ScoreCommandTest.run(args);
+    return new Run(r.code(), r.out(), r.err());
   }
 
   @Nested

@@ -108,9 +108,9 @@ class RescoreCommandTest {
         "--json", js.toString());
     assertThat(sharp.code).as(sharp.err).isZero();
     assertThat(sharp.err).contains("steelyard: warning: posteriors are nearly all 0 or 1");
-    assertThat(new ObjectMapper().readTree(js.toFile()).get("warnings").toString()).contains("--posterior-scale");
+    assertThat(new ObjectMapper().readTree(js.toFile()).get("warnings").toString()).contains("--posterior-sharpness");
     Result soft = run("rescore", "--hyps", hyps.toString(), "--features", "acoustic", "--method", "mbr",
-        "--posterior-scale", "0.01", "--json", js.toString());
+        "--posterior-sharpness", "0.01", "--json", js.toString());
     assertThat(soft.err).doesNotContain("posteriors are nearly all");
     Result nbest = run("rescore", "--hyps", hyps.toString(), "--features", "acoustic", "--json", js.toString());
     assertThat(nbest.err).doesNotContain("posteriors are nearly all");

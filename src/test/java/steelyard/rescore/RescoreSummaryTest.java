@@ -91,7 +91,7 @@ class RescoreSummaryTest {
       // gap 10 nats: top mass 1/(1+e^−10) ≈ 0.99995 > 0.999; gap 1: ≈ 0.731
       RescoreSummary s = summary(RescoreMethod.MBR, 10, 10, 1);
       assertThat(s.collapsedUtterances()).isEqualTo(2);
-      assertThat(s.warnings()).singleElement().asString().contains("posteriors are nearly all 0 or 1").contains("--posterior-scale");
+      assertThat(s.warnings()).singleElement().asString().contains("posteriors are nearly all 0 or 1").contains("--posterior-sharpness");
     }
 
     @Test
