@@ -61,6 +61,20 @@ final class CandidateTable {
     return t;
   }
 
+  /**
+   * Totals of candidates [from, from + n) into {@code out} (returned): the same sums as {@link #total}, in the same
+   * column order, accumulated column by column so that each column is read sequentially.
+   */
+  double[] totals(int from, int n, double[] w, double[] out) {
+    for (int c = 0; c < w.length; c++) {
+      double wc = w[c];
+      if (wc == 0) continue;
+      double[] col = column[c];
+      for (int i = 0; i < n; i++) out[i] += wc * col[from + i];
+    }
+    return out;
+  }
+
   /** The candidate of utterance {@code u} with the highest total under {@code w}; ties to the smaller tie order. */
   int best(int u, double[] w) {
     int best = start[u];

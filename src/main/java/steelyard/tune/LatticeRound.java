@@ -28,9 +28,10 @@ import steelyard.rescore.ScoredUtterance;
 final class LatticeRound {
   /**
    * @param lmWeight, lengthWeight the chosen λ′, μ′
-   * @param errors                 true errors per utterance at them
+   * @param errors                 true errors per utterance at them, aligned with the utterances searched
    * @param iterations             search rounds made
-   * @param pool                   the final pools, as a candidate table with columns {ln posterior, ln P_LM, tokens}
+   * @param pool                   the final pools, as a candidate table with columns {ln posterior, ln P_LM, tokens},
+   *                               its utterance k being the k-th utterance searched
    */
   record Result(double lmWeight, double lengthWeight, int[] errors, long total, int iterations, CandidateTable pool) {}
 
@@ -59,20 +60,48 @@ final class LatticeRound {
     return dims.length > 0;
   }
 
-  /** Runs the rounds at the posterior scale and system weights of {@code w}, starting from its λ′ and μ′. */
-  Result run(RescoreWeights w, SplittableRandom rnd) {
-    int u = data.size();
+  /** The networks of {@code utts} at the posteriors of {@code w}, built once. */
+  private record Networks(int[] utts, ConfusionNetwork[] nets, double[][] post, int[] firstErrors, int[] refTokens, int[] positions) {}
+
+  private Networks networks(RescoreWeights w, int[] utts) {
+    int u = utts.length;
     NbestRescorer rescorer = new NbestRescorer(null, data.input.featureNames(), w, RescoreMethod.LATTICE, data.input.model(),
         () -> new Aligner()::distance);
     ConfusionNetwork[] nets = new ConfusionNetwork[u];
     double[][] post = new double[u][];
     workers.blocks(u, (b, from, to) -> {
       for (int k = from; k < to; k++) {
-        ScoredUtterance s = data.scores(k);
+        ScoredUtterance s = data.scores(utts[k]);
         post[k] = rescorer.posteriors(s, rescorer.weighting().totals(s, new double[s.size()]));
-        nets[k] = Lattices.network(data.tokens(k), post[k], w.latticeSettings());
+        nets[k] = Lattices.network(data.tokens(utts[k]), post[k], w.latticeSettings());
       }
     });
+    int[] firstErrors = new int[u];
+    int[] refTokens = new int[u];
+    int[] positions = new int[u];
+    for (int k = 0; k < u; k++) {
+      firstErrors[k] = data.nbest.firstErrors[utts[k]];
+      refTokens[k] = data.nbest.refTokens[utts[k]];
+      positions[k] = k;
+    }
+    return new Networks(utts, nets, post, firstErrors, refTokens, positions);
+  }
+
+  /**
+   * The pools of {@code utts} gathered by k-best searches at each {λ′, μ′} of {@code points}, at the posteriors of
+   * {@code w} (for sweeps and surfaces: exact over the pooled paths).
+   */
+  CandidateTable gather(RescoreWeights w, int[] utts, double[][] points) {
+    Networks n = networks(w, utts);
+    PathPool pool = new PathPool(utts.length);
+    for (double[] p : points) search(n, pool, w, new double[] {1, p[0], p[1]}, new int[utts.length]);
+    return pool.table(n.firstErrors(), n.refTokens());
+  }
+
+  /** Runs the rounds over {@code utts} at the posterior scale and system weights of {@code w}, from its λ′ and μ′. */
+  Result run(RescoreWeights w, int[] utts, SplittableRandom rnd) {
+    int u = utts.length;
+    Networks n = networks(w, utts);
     PathPool pool = new PathPool(u);
     double[] cur = {1, w.latticeLmWeight(), w.latticeLengthWeight()};
     double[] best = cur.clone();
@@ -82,7 +111,7 @@ final class LatticeRound {
     CandidateTable table;
     while (true) {
       int[] top = new int[u];
-      int added = search(nets, post, pool, w, cur, top);
+      int added = search(n, pool, w, cur, top);
       long total = Arrays.stream(top).asLongStream().sum();
       if (total < bestTotal) {
         bestTotal = total;
@@ -90,16 +119,16 @@ final class LatticeRound {
         best = cur.clone();
       }
       it++;
-      table = pool.table(data.nbest.firstErrors, data.nbest.refTokens);
+      table = pool.table(n.firstErrors(), n.refTokens());
       if ((it > 1 && added == 0) || it >= settings.maxPoolIterations() || dims.length == 0) break;
-      double[] next = tuner(table, data.all()).run(cur, rnd).weights();
+      double[] next = tuner(table, n.positions()).run(cur, rnd).weights();
       if (Arrays.equals(next, cur)) break;
       cur = next;
     }
     return new Result(best[1], best[2], bestErrors, bestTotal, it, table);
   }
 
-  /** Tunes (λ′, μ′) from the start weights over {@code utts} of a pool table: {λ′, μ′, pool errors}. */
+  /** Tunes (λ′, μ′) from the start weights over utterances {@code utts} of a pool table: {λ′, μ′, pool errors}. */
   double[] tuneOnPool(CandidateTable pool, int[] utts, RescoreWeights start, SplittableRandom rnd) {
     LinearTuner.Outcome o = tuner(pool, utts).run(new double[] {1, start.latticeLmWeight(), start.latticeLengthWeight()}, rnd);
     return new double[] {o.weights()[1], o.weights()[2], o.errors()};
@@ -107,7 +136,7 @@ final class LatticeRound {
 
   /** Exact best intervals of the tuned columns at (λ′, μ′) over the pool; rows follow {@link NetworkData#latticeDims}. */
   double[][] intervals(CandidateTable pool, double lmWeight, double lengthWeight) {
-    return tuner(pool, data.all()).intervals(new double[] {1, lmWeight, lengthWeight});
+    return tuner(pool, pool.all()).intervals(new double[] {1, lmWeight, lengthWeight});
   }
 
   private LinearTuner tuner(CandidateTable pool, int[] utts) {
@@ -115,20 +144,22 @@ final class LatticeRound {
   }
 
   /** k-best search of every utterance at {1, λ′, μ′}; pools the paths, fills the best path's errors, counts new paths. */
-  private int search(ConfusionNetwork[] nets, double[][] post, PathPool pool, RescoreWeights w, double[] cur, int[] top) {
+  private int search(Networks n, PathPool pool, RescoreWeights w, double[] cur, int[] top) {
     LatticeSettings ls = new LatticeSettings(cur[1], cur[2], w.beam(), w.latticeMaxHypotheses());
-    int[] added = new int[Workers.blockCount(nets.length)];
-    workers.blocks(nets.length, (b, from, to) -> {
+    int[] utts = n.utts();
+    int[] added = new int[Workers.blockCount(utts.length)];
+    workers.blocks(utts.length, (b, from, to) -> {
       Aligner aligner = new Aligner();
       boolean[] isNew = new boolean[1];
       for (int k = from; k < to; k++) {
-        ScoredUtterance s = data.scores(k);
-        List<List<String>> toks = data.tokens(k);
-        List<LatticeChoice> paths = Lattices.searchKBest(nets[k], toks, post[k], data.input.model(), ls, settings.kBest());
-        int[] refIds = s.idsOf(data.reference(k).tokens());
-        boolean[] refOptional = data.reference(k).optional();
+        int x = utts[k];
+        ScoredUtterance s = data.scores(x);
+        List<List<String>> toks = data.tokens(x);
+        List<LatticeChoice> paths = Lattices.searchKBest(n.nets()[k], toks, n.post()[k], data.input.model(), ls, settings.kBest());
+        int[] refIds = s.idsOf(data.reference(x).tokens());
+        boolean[] refOptional = data.reference(x).optional();
         for (int p = 0; p < paths.size(); p++) {
-          int e = pool.add(k, s, paths.get(p), data.nbest.errors, data.nbest.start[k], refIds, refOptional, data.input.model(),
+          int e = pool.add(k, s, paths.get(p), data.nbest.errors, data.nbest.start[x], refIds, refOptional, data.input.model(),
               aligner, isNew);
           if (isNew[0]) added[b]++;
           if (p == 0) top[k] = e;

@@ -99,10 +99,13 @@ final class TuneRun {
     boolean kept = sum(tunedErrors) >= sum(startErrors);
     double[] vector = kept ? nbest.vector(start) : o.weights();
     int[] errors = kept ? startErrors : tunedErrors;
-    double foldShare = folds == null ? 0 : share * 0.8 / folds.count();
-    report(done + (folds == null ? share : share * 0.2), "N-best weights tuned");
+    // The N-best folds matter only when the N-best method itself is reported (the network methods take the
+    // N-best weights of the whole dev set; see NetworkTuning).
+    boolean validate = folds != null && settings.methods().contains(RescoreMethod.NBEST);
+    double foldShare = validate ? share * 0.8 / folds.count() : 0;
+    report(done + (validate ? share * 0.2 : share), "N-best weights tuned");
     int[] cv = null;
-    if (folds != null) {
+    if (validate) {
       cv = new int[all.length];
       for (int f = 0; f < folds.count(); f++) {
         LinearTuner.Outcome fo = nbest.tuner(folds.train(f), settings, workers).run(nbest.vector(start), rnd.split());

@@ -22,6 +22,9 @@ import steelyard.rescore.RescoreMethod;
  * @param maxPasses         cap on passes of one coordinate-ascent run
  * @param kBest             paths per utterance added to the lattice pools by each search
  * @param maxPoolIterations cap on search-and-tune rounds of the lattice pools per posterior scale
+ * @param outerSample       the network methods' search over α and system weights runs on a seeded sample of at
+ *                          most this many utterances (0: all); the lattice method's λ′ and μ′ are then tuned again
+ *                          on all utterances at the chosen α
  * @param surface           whether to compute the error surface of the chosen method
  */
 public record TuneSettings(
@@ -36,6 +39,7 @@ public record TuneSettings(
     int maxPasses,
     int kBest,
     int maxPoolIterations,
+    int outerSample,
     boolean surface) {
 
   public static final int DEFAULT_FOLDS = 5;
@@ -45,49 +49,59 @@ public record TuneSettings(
     methods = methods.isEmpty() ? EnumSet.allOf(RescoreMethod.class) : EnumSet.copyOf(methods);
     tune = tune == null ? null : Set.copyOf(tune);
     ranges = java.util.Collections.unmodifiableMap(new TreeMap<>(ranges));
-    if (folds < 0 || threads < 1 || restarts < 0 || randomDirections < 0 || maxPasses < 1 || kBest < 1 || maxPoolIterations < 1)
-      throw new IllegalArgumentException("folds, restarts, random directions >= 0; threads, passes, k-best, pool iterations >= 1");
+    if (folds < 0 || threads < 1 || restarts < 0 || randomDirections < 0 || maxPasses < 1 || kBest < 1 || maxPoolIterations < 1
+        || outerSample < 0)
+      throw new IllegalArgumentException("folds, restarts, random directions, sample >= 0; threads, passes, k-best, pool iterations >= 1");
   }
 
-  /** All methods, default weights, 5 folds, 1 thread, 5 restarts, 3 random directions, 20-best pools. */
+  public static final int DEFAULT_OUTER_SAMPLE = 2000;
+
+  /**
+   * All methods, the default weights, 5 folds, 1 thread, 5 restarts, 3 random directions, at most 30 passes,
+   * 10-best searches for the pools, at most 8 pool rounds, an outer sample of 2000 utterances, a surface.
+   */
   public static TuneSettings defaults() {
-    return new TuneSettings(Set.of(), null, Map.of(), DEFAULT_FOLDS, DEFAULT_SEED, 1, 5, 3, 30, 20, 8, true);
+    return new TuneSettings(Set.of(), null, Map.of(), DEFAULT_FOLDS, DEFAULT_SEED, 1, 5, 3, 30, 10, 8, DEFAULT_OUTER_SAMPLE, true);
   }
 
   public TuneSettings withMethods(Set<RescoreMethod> m) {
-    return new TuneSettings(m, tune, ranges, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, surface);
+    return new TuneSettings(m, tune, ranges, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, outerSample, surface);
   }
 
   public TuneSettings withTune(Set<String> t) {
-    return new TuneSettings(methods, t, ranges, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, surface);
+    return new TuneSettings(methods, t, ranges, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, outerSample, surface);
   }
 
   public TuneSettings withRanges(Map<String, WeightRange> r) {
-    return new TuneSettings(methods, tune, r, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, surface);
+    return new TuneSettings(methods, tune, r, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, outerSample, surface);
   }
 
   public TuneSettings withFolds(int f) {
-    return new TuneSettings(methods, tune, ranges, f, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, surface);
+    return new TuneSettings(methods, tune, ranges, f, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, outerSample, surface);
   }
 
   public TuneSettings withSeed(long s) {
-    return new TuneSettings(methods, tune, ranges, folds, s, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, surface);
+    return new TuneSettings(methods, tune, ranges, folds, s, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, outerSample, surface);
   }
 
   public TuneSettings withThreads(int t) {
-    return new TuneSettings(methods, tune, ranges, folds, seed, t, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, surface);
+    return new TuneSettings(methods, tune, ranges, folds, seed, t, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, outerSample, surface);
   }
 
   public TuneSettings withSearch(int restarts, int randomDirections, int maxPasses) {
-    return new TuneSettings(methods, tune, ranges, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, surface);
+    return new TuneSettings(methods, tune, ranges, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, outerSample, surface);
   }
 
   public TuneSettings withPools(int kBest, int maxPoolIterations) {
-    return new TuneSettings(methods, tune, ranges, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, surface);
+    return new TuneSettings(methods, tune, ranges, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, outerSample, surface);
+  }
+
+  public TuneSettings withOuterSample(int n) {
+    return new TuneSettings(methods, tune, ranges, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, n, surface);
   }
 
   public TuneSettings withSurface(boolean s) {
-    return new TuneSettings(methods, tune, ranges, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, s);
+    return new TuneSettings(methods, tune, ranges, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, outerSample, s);
   }
 
   /** The allowed range of {@code name}: the override when given, else the default. */

@@ -11,38 +11,98 @@ import steelyard.rescore.RescoreWeights;
  * surface one line search per row, whatever the number of grid columns.
  *
  * <pre>{@code
- * Sweep s = WeightSweep.nbest(input, tuned, WeightNames.LM, 0, 30, 2);
+ * WeightSweep sweeps = WeightSweep.of(input, 2);
+ * Sweep s = sweeps.nbest(tuned, WeightNames.LM, 0, 30);
  * for (int j = 0; j < s.intervals(); j++) plot(s.intervalLow(j), s.intervalHigh(j), s.rate(j));
  * }</pre>
  */
 public final class WeightSweep {
-  private WeightSweep() {}
+  private final TuneInput input;
+  private final CandidateTable table;
+  private final int threads;
+
+  private WeightSweep(TuneInput input, CandidateTable table, int threads) {
+    this.input = input;
+    this.table = table;
+    this.threads = threads;
+  }
+
+  /**
+   * Prepares sweeps over the dev set of {@code input}: scores every hypothesis against its reference once (the
+   * costly part; about 9 + 8·(F+3) bytes per hypothesis are kept), so that each later sweep costs one exact line
+   * search. Sweeps run on {@code threads} threads and give the same result for any count. Not thread-safe.
+   */
+  public static WeightSweep of(TuneInput input, int threads) {
+    if (threads < 1) throw new IllegalArgumentException("threads must be >= 1: " + threads);
+    try (Workers w = new Workers(threads, () -> false)) {
+      return new WeightSweep(input, NbestTuning.table(input, w), threads);
+    }
+  }
 
   /**
    * The N-best method's errors along {@code weight} (a feature name, {@link WeightNames#LM}, {@link WeightNames#OOV}
    * or {@link WeightNames#LENGTH}) over [low, high], the other weights as in {@code at}.
    */
-  public static Sweep nbest(TuneInput input, RescoreWeights at, String weight, double low, double high, int threads) {
+  public Sweep nbest(RescoreWeights at, String weight, double low, double high) {
+    int dim = column(NbestTuning.columnNames(input.featureNames()), weight);
     try (Workers w = new Workers(threads, () -> false)) {
-      CandidateTable t = NbestTuning.table(input, w);
-      List<String> names = NbestTuning.columnNames(input.featureNames());
-      int dim = column(names, weight);
-      double[] v = NbestTuning.vector(at, input.featureNames());
-      return sweep(t, v, dim, weight, low, high, true, w);
+      return sweep(table, NbestTuning.vector(at, input.featureNames()), dim, weight, low, high, true, w);
     }
   }
 
   /** The N-best method's errors over {@code rows} × {@code columns} of two N-best weights, the others as in {@code at}. */
-  public static ErrorSurface nbestSurface(TuneInput input, RescoreWeights at, String rowWeight, double[] rows, String columnWeight,
-      double[] columns, int threads) {
+  public ErrorSurface nbestSurface(RescoreWeights at, String rowWeight, double[] rows, String columnWeight, double[] columns) {
+    List<String> names = NbestTuning.columnNames(input.featureNames());
+    double[] v = NbestTuning.vector(at, input.featureNames());
     try (Workers w = new Workers(threads, () -> false)) {
-      CandidateTable t = NbestTuning.table(input, w);
-      List<String> names = NbestTuning.columnNames(input.featureNames());
-      double[] v = NbestTuning.vector(at, input.featureNames());
-      long[][] e = grid(t, v, column(names, rowWeight), rows, column(names, columnWeight), columns, w);
+      long[][] e = grid(table, v, column(names, rowWeight), rows, column(names, columnWeight), columns, w);
       return new ErrorSurface(RescoreMethod.NBEST, rowWeight, rows.clone(), columnWeight, columns.clone(), e,
-          t.referenceTokens(t.all()), true);
+          table.referenceTokens(table.all()), true);
     }
+  }
+
+  /**
+   * The lattice method's errors along λ′ over [low, high] (low ≥ 0), at the posteriors of {@code at} (its N-best
+   * weights, α, system weights) and its μ′. The confusion networks are built once; each utterance's k best paths
+   * are pooled from searches at {@code samples} evenly spaced λ′ of the range and at {@code at}'s λ′; the step
+   * function is exact over the pooled paths ({@link Sweep#exact()} is false: a path no search found cannot show).
+   * Cost: one network build and {@code samples + 1} searches per utterance.
+   */
+  public Sweep lattice(RescoreWeights at, double low, double high, int kBest, int samples) {
+    double[] lm = linear(low, high, Math.max(2, samples));
+    double[][] points = new double[lm.length + 1][];
+    for (int i = 0; i < lm.length; i++) points[i] = new double[] {lm[i], at.latticeLengthWeight()};
+    points[lm.length] = new double[] {at.latticeLmWeight(), at.latticeLengthWeight()};
+    try (Workers w = new Workers(threads, () -> false)) {
+      CandidateTable pool = pools(at, kBest, points, w);
+      double[] v = {1, at.latticeLmWeight(), at.latticeLengthWeight()};
+      return sweep(pool, v, 1, WeightNames.LATTICE_LM, low, high, false, w);
+    }
+  }
+
+  /**
+   * The lattice method's errors over μ′ = {@code rows} × λ′ = {@code columns} at the posteriors of {@code at}, exact
+   * over paths pooled from searches at the grid's four corners, its centre and {@code at}'s (λ′, μ′).
+   */
+  public ErrorSurface latticeSurface(RescoreWeights at, double[] rows, double[] columns, int kBest) {
+    double r0 = rows[0];
+    double r1 = rows[rows.length - 1];
+    double c0 = columns[0];
+    double c1 = columns[columns.length - 1];
+    double[][] points = {{c0, r0}, {c0, r1}, {c1, r0}, {c1, r1}, {(c0 + c1) / 2, (r0 + r1) / 2},
+        {at.latticeLmWeight(), at.latticeLengthWeight()}};
+    try (Workers w = new Workers(threads, () -> false)) {
+      CandidateTable pool = pools(at, kBest, points, w);
+      long[][] e = grid(pool, new double[] {1, at.latticeLmWeight(), at.latticeLengthWeight()}, 2, rows, 1, columns, w);
+      return new ErrorSurface(RescoreMethod.LATTICE, WeightNames.LATTICE_LENGTH, rows.clone(), WeightNames.LATTICE_LM,
+          columns.clone(), e, table.referenceTokens(table.all()), false);
+    }
+  }
+
+  private CandidateTable pools(RescoreWeights at, int kBest, double[][] points, Workers w) {
+    if (input.model() == null && at.latticeLmWeight() != 0) throw new IllegalArgumentException("λ′ needs a model");
+    TuneSettings s = TuneSettings.defaults().withPools(kBest, 1);
+    return new LatticeRound(new NetworkData(input, table), s, w).gather(at, table.all(), points);
   }
 
   private static int column(List<String> names, String weight) {

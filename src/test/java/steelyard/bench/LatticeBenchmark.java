@@ -174,7 +174,7 @@ public class LatticeBenchmark {
    * Counts 1–3-grams of random chain text and lists them with relative frequencies discounted by 0.8 and a
    * back-off weight of 0.2 (log10), not a normalised estimator: enough to give the search a real model shape.
    */
-  private static BackoffModel countedTrigramModel(SplittableRandom rnd, int[][] successors, int tokens) {
+  static BackoffModel countedTrigramModel(SplittableRandom rnd, int[][] successors, int tokens) {
     BackoffModel.Builder b = new BackoffModel.Builder(3, Unit.WORD, NormalisationOptions.EXACT);
     int[] ids = new int[VOCAB];
     for (int w = 0; w < VOCAB; w++) ids[w] = b.tokenId("w" + w);

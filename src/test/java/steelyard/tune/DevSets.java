@@ -75,6 +75,49 @@ final class DevSets {
     return out;
   }
 
+  /** A dev set and the model trained on text from the same word chain. */
+  record WithModel(List<DevUtterance> dev, LanguageModel model) {}
+
+  /**
+   * References walk a fixed word chain (each word has two successors), a word 3-gram (modified Kneser-Ney) is
+   * trained on 400 more walks, and hypotheses are random edits of the reference with an {@code acoustic} feature
+   * loosely tied to their errors; the model then knows something the feature does not.
+   */
+  static WithModel withModel(SplittableRandom rnd, int utts, int maxHyps) {
+    int[][] next = new int[VOCAB.length][2];
+    for (int[] n : next) for (int k = 0; k < 2; k++) n[k] = rnd.nextInt(VOCAB.length);
+    List<List<String>> corpus = new ArrayList<>();
+    for (int i = 0; i < 400; i++) corpus.add(walk(rnd, next, 3 + rnd.nextInt(5)));
+    LanguageModel lm = new steelyard.lm.train.Trainer(steelyard.lm.train.TrainingOptions.of(3, steelyard.lm.train.Smoothing.MKN))
+        .train(steelyard.lm.train.SentenceSource.of(corpus)).model();
+    List<DevUtterance> out = new ArrayList<>();
+    for (int u = 0; u < utts; u++) {
+      List<String> ref = walk(rnd, next, 3 + rnd.nextInt(5));
+      int n = 2 + rnd.nextInt(maxHyps - 1);
+      String[] texts = new String[n];
+      double[][] f = new double[n][1];
+      for (int i = 0; i < n; i++) {
+        List<String> h = new ArrayList<>(ref);
+        int edits = rnd.nextInt(4);
+        for (int e = 0; e < edits; e++) edit(rnd, h);
+        texts[i] = String.join(" ", h);
+        f[i][0] = 2 * LinearTuner.gaussian(rnd) - edits;
+      }
+      out.add(utterance("u" + u, String.join(" ", ref), texts, f, lm));
+    }
+    return new WithModel(out, lm);
+  }
+
+  private static List<String> walk(SplittableRandom rnd, int[][] next, int n) {
+    List<String> w = new ArrayList<>();
+    int at = rnd.nextInt(VOCAB.length);
+    for (int i = 0; i < n; i++) {
+      w.add(VOCAB[at]);
+      at = next[at][rnd.nextInt(2)];
+    }
+    return w;
+  }
+
   private static List<String> words(SplittableRandom rnd, int n) {
     List<String> w = new ArrayList<>();
     for (int i = 0; i < n; i++) w.add(VOCAB[rnd.nextInt(VOCAB.length)]);

@@ -48,7 +48,7 @@ class LineSearchTest {
     @Test
     void sweepHasTheBreakpointsErrorsAndCountsWorkedOutByHand() {
       TuneInput in = handWorked();
-      Sweep s = WeightSweep.nbest(in, in.start(), "lmf", -10, 10, 1);
+      Sweep s = WeightSweep.of(in, 1).nbest(in.start(), "lmf", -10, 10);
       assertThat(s.breakpoints()).containsExactly(new double[] {-1.0 / 3, 0.5, 1}, within(1e-12));
       assertThat(s.errors()).containsExactly(1, 2, 3, 1);
       assertThat(s.helped()).containsExactly(1, 0, 0, 1);
