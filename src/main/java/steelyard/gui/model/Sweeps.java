@@ -8,11 +8,10 @@ import steelyard.rescore.RescoreWeights;
 import steelyard.tune.ErrorSurface;
 import steelyard.tune.Sweep;
 import steelyard.tune.WeightNames;
-import steelyard.tune.WeightSweep;
 
 /**
  * The series behind the window's charts: the exact corpus error and helped/hurt counts along λ and the error
- * over a λ × μ grid, both from the tuner's exact line search ({@link WeightSweep}, N-best), and the error per
+ * over a λ × μ grid, both from the tuner's exact line search ({@code tune.WeightSweep}, N-best), and the error per
  * group under the current choices.
  */
 public final class Sweeps {
@@ -51,13 +50,13 @@ public final class Sweeps {
 
   /**
    * The exact error and helped/hurt counts along λ over [low, high] (other weights as in {@code at}), from the
-   * tuner's sweep ({@link WeightSweep#nbest}: one exact line search). Series points are the interval starts
+   * tuner's sweep ({@code tune.WeightSweep}: one exact line search). Series points are the interval starts
    * plus a closing point at {@code high}; references without hypotheses count as all deletions, as in the
    * corpus figures.
    */
   public static LambdaSweep lambda(Workspace w, RescoreWeights at, double low, double high) {
     Corpus c = w.corpus();
-    Sweep s = WeightSweep.nbest(w.tuneInput(at), at, WeightNames.LM, low, high, threads());
+    Sweep s = w.weightSweep().nbest(at, WeightNames.LM, low, high);
     long lost = c.orphanTokens();
     long n = s.referenceTokens() + lost;
     int m = s.intervals();
@@ -82,9 +81,9 @@ public final class Sweeps {
         java.util.Arrays.copyOf(hurt, k), rate(s.firstErrors() + lost, n), rate(oracle, n), at.lmWeight());
   }
 
-  /** The error over λ × μ (other weights as in {@code at}), one exact line search along λ per μ ({@link WeightSweep#nbestSurface}). */
+  /** The error over λ × μ (other weights as in {@code at}), one exact line search along λ per μ ({@code tune.WeightSweep}). */
   public static Surface surface(Workspace w, RescoreWeights at, double[] lambdas, double[] mus) {
-    ErrorSurface e = WeightSweep.nbestSurface(w.tuneInput(at), at, WeightNames.LENGTH, mus, WeightNames.LM, lambdas, threads());
+    ErrorSurface e = w.weightSweep().nbestSurface(at, WeightNames.LENGTH, mus, WeightNames.LM, lambdas);
     long lost = w.corpus().orphanTokens();
     double[][] err = new double[lambdas.length][mus.length];
     int[] best = {0, 0};
@@ -120,7 +119,4 @@ public final class Sweeps {
     return n == 0 ? Double.NaN : (double) errors / n;
   }
 
-  private static int threads() {
-    return Runtime.getRuntime().availableProcessors();
-  }
 }

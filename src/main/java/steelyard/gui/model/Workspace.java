@@ -38,6 +38,7 @@ import steelyard.tune.TuneInput;
 import steelyard.tune.TuneResult;
 import steelyard.tune.TuneSettings;
 import steelyard.tune.Tuner;
+import steelyard.tune.WeightSweep;
 import java.util.Set;
 
 /**
@@ -60,6 +61,7 @@ public final class Workspace {
   private final int maxHypotheses;
   private volatile List<DevUtterance> devUtterances;
   private volatile boolean idsBuilt;
+  private WeightSweep sweeps;
 
   Workspace(OpenRequest request, RescoreSession session, ScoredSet set, Corpus corpus, List<String> warnings) {
     this.request = request;
@@ -183,6 +185,16 @@ public final class Workspace {
     }
     if (dev.isEmpty()) throw InputException.option("tune", "no utterance has a reference", "a references file (File ▸ Open)");
     return TuneInput.of(dev, corpus.featureNames(), model(), start);
+  }
+
+  /**
+   * The tuner's sweeps over this corpus ({@link WeightSweep}): every hypothesis scored against its reference
+   * once, on the first call (the costly part), then one exact line search per sweep. Not thread-safe: the
+   * window calls it from its one background thread.
+   */
+  public synchronized WeightSweep weightSweep() {
+    if (sweeps == null) sweeps = WeightSweep.of(tuneInput(initialWeights()), Runtime.getRuntime().availableProcessors());
+    return sweeps;
   }
 
   /**
