@@ -2,7 +2,6 @@ package steelyard.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
-import java.net.URISyntaxException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
@@ -16,6 +15,7 @@ import picocli.CommandLine.Spec;
 import steelyard.eval.EditCounts;
 import steelyard.io.FeatureSpec;
 import steelyard.io.ImportOptions;
+import steelyard.demo.DemoFiles;
 import steelyard.io.InputException;
 import steelyard.rescore.RescoreConfig;
 import steelyard.rescore.RescoreMethod;
@@ -53,7 +53,7 @@ public final class DemoCommand implements Callable<Integer> {
 
   @Override
   public Integer call() {
-    Path root = dataDir != null ? dataDir : projectRoot();
+    Path root = dataDir != null ? dataDir : DemoFiles.root();
     Path data = root.resolve("sample-hypotheses");
     Path models = root.resolve("models");
     if (!Files.isDirectory(data) || !Files.isDirectory(models))
@@ -122,15 +122,4 @@ public final class DemoCommand implements Callable<Integer> {
     return (double) c.errors() / c.referenceTokens();
   }
 
-  /** The folder above {@code target/} when running from the built jar, else the current folder. */
-  private static Path projectRoot() {
-    try {
-      Path jar = Path.of(DemoCommand.class.getProtectionDomain().getCodeSource().getLocation().toURI());
-      Path candidate = jar.getParent() == null ? null : jar.getParent().getParent();
-      if (candidate != null && Files.isDirectory(candidate.resolve("sample-hypotheses"))) return candidate;
-    } catch (URISyntaxException | SecurityException | NullPointerException e) {
-      // fall through to the current folder
-    }
-    return Path.of("").toAbsolutePath();
-  }
 }

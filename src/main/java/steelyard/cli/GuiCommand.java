@@ -12,11 +12,10 @@ import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
-import steelyard.gui.DemoFiles;
+import steelyard.demo.DemoFiles;
 import steelyard.gui.SteelyardWindow;
 import steelyard.gui.WindowPrefs;
 import steelyard.gui.model.OpenRequest;
-import steelyard.io.FeatureSpec;
 import steelyard.io.InputException;
 import steelyard.rescore.RescoreMethod;
 
@@ -29,23 +28,15 @@ import steelyard.rescore.RescoreMethod;
         + "Without --hyps it opens the bundled demo.")
 public final class GuiCommand implements Callable<Integer> {
   @Spec CommandSpec spec;
-  @Mixin NormalisationInput normalisation;
 
   @Option(names = "--hyps", paramLabel = "FILE", description = "Hypotheses CSV (.gz accepted); without it the demo opens.")
   Path hyps;
 
-  @Option(names = "--refs", paramLabel = "FILE", description = "References CSV.")
-  Path refs;
-
-  @Option(names = "--lm", paramLabel = "FILE", description = "Language model (.arpa, .arpa.gz or .bin).")
-  Path lm;
-
-  @Option(names = "--weights", paramLabel = "FILE", description = "Weights file (JSON) to start from.")
-  Path weights;
-
-  @Option(names = "--features", paramLabel = "SPECS",
-      description = "Score columns, comma-separated NAME[:ln|log10|cost|linear][:scale=S] (default: those of the weights file).")
-  String features;
+  @Mixin ImportInput imports;
+  @Mixin ReferencesInput references;
+  @Mixin LmModelInput model;
+  @Mixin RescoreWeightOptions weights;
+  @Mixin NormalisationInput normalisation;
 
   @Option(names = "--method", paramLabel = "nbest|mbr|consensus|lattice", description = "How to choose at first (default nbest).")
   RescoreMethod method;
@@ -69,14 +60,15 @@ public final class GuiCommand implements Callable<Integer> {
 
   /** The files to open: the demo without --hyps, else what the options name. */
   OpenRequest request() {
-    boolean unitGiven = spec.commandLine().getParseResult().hasMatchedOption("--unit");
     if (hyps == null) {
-      if (refs != null || lm != null || weights != null || features != null)
+      if (references.refs != null || model.lm != null || weights.weightsFile != null || imports.features != null)
         throw InputException.option("--hyps", "missing while --refs, --lm, --weights or --features is given",
             "--hyps FILE, or no file options at all for the demo");
-      return OpenRequest.demo(DemoFiles.root());
+      return OpenRequest.demo(DemoFiles.root()).with(weights.spec(), method);
     }
-    return OpenRequest.of(hyps, refs, lm, weights, FeatureSpec.parseList(features), unitGiven ? normalisation.unit : null,
-        normalisation.options(), method);
+    boolean unitGiven = spec.commandLine().getParseResult().hasMatchedOption("--unit");
+    return new OpenRequest(hyps, references.refs, model.lm, null, 3, weights.weightsFile, weights.spec(), imports.featureSpecs(),
+        imports.primarySystem, unitGiven ? normalisation.unit : null, normalisation.options(), method, imports.maxBadRows,
+        model.unknownLog10);
   }
 }

@@ -8,7 +8,6 @@ import java.awt.Graphics;
 import java.awt.Graphics2D;
 import java.awt.RenderingHints;
 import java.util.List;
-import javax.swing.JComponent;
 import steelyard.gui.model.AlignedPair;
 import steelyard.report.charts.Palette;
 
@@ -18,7 +17,7 @@ import steelyard.report.charts.Palette;
  * so an edit never shows by colour alone. The tooltip and accessible description carry the same as text.
  * EDT only.
  */
-final class AlignmentStrip extends JComponent {
+final class AlignmentStrip extends DrawnComponent {
   private static final long serialVersionUID = 1L;
   private static final int PAD = 7;
   private static final int GAP = 3;
@@ -29,6 +28,7 @@ final class AlignmentStrip extends JComponent {
   private String summary = "";
 
   AlignmentStrip(String name, String title) {
+    super(javax.accessibility.AccessibleRole.LABEL);
     this.title = title;
     setName(name);
     setFont(getFont() == null ? new Font(Font.SANS_SERIF, Font.PLAIN, 13) : getFont().deriveFont(13f));
@@ -64,19 +64,6 @@ final class AlignmentStrip extends JComponent {
 
   String summary() {
     return summary;
-  }
-
-  @Override
-  public javax.accessibility.AccessibleContext getAccessibleContext() {
-    if (accessibleContext == null) {
-      accessibleContext = new AccessibleJComponent() {
-        private static final long serialVersionUID = 1L;
-        @Override public javax.accessibility.AccessibleRole getAccessibleRole() {
-          return javax.accessibility.AccessibleRole.LABEL;
-        }
-      };
-    }
-    return accessibleContext;
   }
 
   @Override

@@ -148,8 +148,8 @@ final class ImportDialog extends JDialog {
     String u = (String) unit.getSelectedItem();
     Unit un = "word".equals(u) ? Unit.WORD : "char".equals(u) ? Unit.CHAR : null;
     return new OpenRequest(h, path(refs), trainIt ? null : model, trainIt ? model : null, (Integer) order.getValue(), path(weights),
-        FeatureSpec.parseList(features.getText()), un, new NormalisationOptions(false, false, false, false, path(rules)),
-        RescoreMethod.values()[method.getSelectedIndex()], (Integer) badRows.getValue());
+        null, FeatureSpec.parseList(features.getText()), null, un, new NormalisationOptions(false, false, false, false, path(rules)),
+        RescoreMethod.values()[method.getSelectedIndex()], (Integer) badRows.getValue(), steelyard.lm.BackoffModel.DEFAULT_UNKNOWN_FLOOR_LOG10);
   }
 
   /** The preview rows shown (for tests). */
@@ -211,7 +211,6 @@ final class ImportDialog extends JDialog {
   }
 
   private int fileRow(JPanel form, int row, String text, int mnemonic, JTextField field, String tip) {
-    field.setName("import." + text.toLowerCase(java.util.Locale.ROOT));
     field.setToolTipText(tip);
     JButton browse = new JButton("…");
     browse.setToolTipText("Choose the " + text.toLowerCase(java.util.Locale.ROOT) + " file");
@@ -225,23 +224,22 @@ final class ImportDialog extends JDialog {
     JPanel p = new JPanel(new BorderLayout(4, 0));
     p.add(field, BorderLayout.CENTER);
     p.add(browse, BorderLayout.EAST);
-    GridBagConstraints c = new GridBagConstraints();
-    c.gridy = row;
-    c.anchor = GridBagConstraints.WEST;
-    c.insets = new Insets(2, 0, 2, 8);
-    form.add(mnemonicLabel(text, mnemonic, field), c);
-    place(form, row, null, p);
-    return row + 1;
+    return labelled(form, row, text, mnemonic, field, p);
   }
 
   private int labelled(JPanel form, int row, String text, int mnemonic, JComponent field) {
+    return labelled(form, row, text, mnemonic, field, field);
+  }
+
+  /** A row: the label (naming {@code field} and focusing it by mnemonic), then {@code shown} (the field, or a panel with it). */
+  private int labelled(JPanel form, int row, String text, int mnemonic, JComponent field, JComponent shown) {
     field.setName("import." + text.toLowerCase(java.util.Locale.ROOT));
     GridBagConstraints c = new GridBagConstraints();
     c.gridy = row;
     c.anchor = GridBagConstraints.WEST;
     c.insets = new Insets(2, 0, 2, 8);
     form.add(mnemonicLabel(text, mnemonic, field), c);
-    place(form, row, null, field);
+    place(form, row, null, shown);
     return row + 1;
   }
 

@@ -14,6 +14,7 @@ import javax.swing.JMenuItem;
 import javax.swing.JOptionPane;
 import javax.swing.JRadioButtonMenuItem;
 import javax.swing.KeyStroke;
+import steelyard.demo.DemoFiles;
 import steelyard.gui.model.OpenRequest;
 import steelyard.rescore.RescoreMethod;
 

@@ -11,7 +11,6 @@ import java.awt.RenderingHints;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
-import javax.swing.JComponent;
 import steelyard.gui.model.NetworkPicture;
 import steelyard.report.charts.Palette;
 
@@ -21,7 +20,7 @@ import steelyard.report.charts.Palette;
  * outlined, set in bold and joined by a line; a skipped slot (the empty arc) reads "(skip)". At most
  * {@link #MAX_ARCS} arcs per slot are drawn, with a count of the rest. EDT only.
  */
-final class NetworkView extends JComponent {
+final class NetworkView extends DrawnComponent {
   private static final long serialVersionUID = 1L;
   static final int MAX_ARCS = 8;
   private static final int PAD = 8;
@@ -32,6 +31,7 @@ final class NetworkView extends JComponent {
   private String message = "no network";
 
   NetworkView() {
+    super(javax.accessibility.AccessibleRole.CANVAS);
     setName("detail.network");
     setOpaque(true);
     setBackground(Color.WHITE);
@@ -47,19 +47,6 @@ final class NetworkView extends JComponent {
     getAccessibleContext().setAccessibleDescription("confusion network of " + p.slots().size() + " slots; chosen path: " + sb);
     revalidate();
     repaint();
-  }
-
-  @Override
-  public javax.accessibility.AccessibleContext getAccessibleContext() {
-    if (accessibleContext == null) {
-      accessibleContext = new AccessibleJComponent() {
-        private static final long serialVersionUID = 1L;
-        @Override public javax.accessibility.AccessibleRole getAccessibleRole() {
-          return javax.accessibility.AccessibleRole.CANVAS;
-        }
-      };
-    }
-    return accessibleContext;
   }
 
   @Override

@@ -35,23 +35,11 @@ final class TuneAction {
     JSpinner folds = new JSpinner(new SpinnerNumberModel(5, 0, 20, 1));
     folds.setName("tune.folds");
     JPanel p = new JPanel(new GridBagLayout());
+    row(p, 0, "Tune", 'u', which);
+    row(p, 1, "Cross-validation folds", 'f', folds);
     GridBagConstraints c = new GridBagConstraints();
     c.anchor = GridBagConstraints.WEST;
     c.insets = new Insets(3, 0, 3, 8);
-    JLabel l1 = new JLabel("Tune");
-    l1.setDisplayedMnemonic('u');
-    l1.setLabelFor(which);
-    p.add(l1, c);
-    c.gridx = 1;
-    p.add(which, c);
-    c.gridx = 0;
-    c.gridy = 1;
-    JLabel l2 = new JLabel("Cross-validation folds");
-    l2.setDisplayedMnemonic('f');
-    l2.setLabelFor(folds);
-    p.add(l2, c);
-    c.gridx = 1;
-    p.add(folds, c);
     c.gridx = 0;
     c.gridy = 2;
     c.gridwidth = 2;
@@ -62,6 +50,19 @@ final class TuneAction {
         != JOptionPane.OK_OPTION) return;
     Set<RescoreMethod> methods = which.getSelectedIndex() == 0 ? EnumSet.of(w.settings().method()) : EnumSet.noneOf(RescoreMethod.class);
     start(w, methods, (Integer) folds.getValue());
+  }
+
+  private static void row(JPanel p, int y, String text, char mnemonic, javax.swing.JComponent field) {
+    GridBagConstraints c = new GridBagConstraints();
+    c.anchor = GridBagConstraints.WEST;
+    c.insets = new Insets(3, 0, 3, 8);
+    c.gridy = y;
+    JLabel l = new JLabel(text);
+    l.setDisplayedMnemonic(mnemonic);
+    l.setLabelFor(field);
+    p.add(l, c);
+    c.gridx = 1;
+    p.add(field, c);
   }
 
   /** Tunes {@code methods} (empty: all) with {@code k} folds from the weights in effect, in the background. */

@@ -97,7 +97,11 @@ public final class ReferenceScorer {
     return (int) aligner.count(refIds, ref.optional(), localIds(tokens, vocabulary), new boolean[tokens.size()]).errors();
   }
 
-  private static int[] localIds(List<String> tokens, Object2IntOpenHashMap<String> vocabulary) {
+  /**
+   * Ids of {@code tokens} in {@code vocabulary}, a caller-owned map that grows with new tokens (ids 0, 1, …); for
+   * aligning token lists without touching an utterance's own lazily built ids.
+   */
+  public static int[] localIds(List<String> tokens, Object2IntOpenHashMap<String> vocabulary) {
     int[] ids = new int[tokens.size()];
     for (int k = 0; k < ids.length; k++) {
       String t = tokens.get(k);

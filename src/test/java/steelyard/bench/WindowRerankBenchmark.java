@@ -1,6 +1,5 @@
 package steelyard.bench;
 
-import java.io.BufferedWriter;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -20,8 +19,8 @@ import org.openjdk.jmh.annotations.Setup;
 import org.openjdk.jmh.annotations.State;
 import org.openjdk.jmh.annotations.TearDown;
 import org.openjdk.jmh.annotations.Warmup;
-import steelyard.cli.Main;
 import steelyard.gui.model.Choices;
+import steelyard.gui.model.GuiFixtures;
 import steelyard.gui.model.OpenRequest;
 import steelyard.gui.model.TaskProgress;
 import steelyard.gui.model.UtteranceFilter;
@@ -29,8 +28,6 @@ import steelyard.gui.model.UtteranceRow;
 import steelyard.gui.model.WeightSettings;
 import steelyard.gui.model.Workspace;
 import steelyard.io.FeatureSpec;
-import steelyard.io.HypothesesReader;
-import steelyard.io.ImportOptions;
 import steelyard.io.SyntheticHypotheses;
 import steelyard.rescore.RescoreMethod;
 import steelyard.rescore.RescoreWeights;
@@ -83,18 +80,11 @@ public class WindowRerankBenchmark {
     Path small = dir.resolve("small.csv");
     Path smallRefs = dir.resolve("small-refs.csv");
     Path model = dir.resolve("lm3.arpa");
-    Path corpus = dir.resolve("corpus.txt");
-    Path source = dir.resolve("source.csv");
-    SyntheticHypotheses.write(source, 50_000, 1, 7L);
-    try (BufferedWriter w = Files.newBufferedWriter(corpus); HypothesesReader r = HypothesesReader.open(source, ImportOptions.strict(List.of()))) {
-      while (r.hasNext()) w.write(r.next().first().text() + "\n");
-    }
-    if (Main.run("lm", "train", "--corpus", corpus.toString(), "--order", "3", "--out", model.toString()) != 0)
-      throw new IllegalStateException("lm train failed");
+    SyntheticModel.train(dir, model);
     SyntheticHypotheses.write(hyps, (long) utterances * perUtterance, perUtterance, 42L);
-    references(hyps, refs, 43L, utterances);
+    GuiFixtures.writeReferences(hyps, refs, 43L, utterances, false);
     SyntheticHypotheses.write(small, (long) networkUtterances * perUtterance, perUtterance, 44L);
-    references(small, smallRefs, 45L, networkUtterances);
+    GuiFixtures.writeReferences(small, smallRefs, 45L, networkUtterances, false);
     List<FeatureSpec> features = FeatureSpec.parseList("acoustic,lm");
     nbest = Workspace.open(OpenRequest.of(hyps, refs, model, null, features, null, NormalisationOptions.EXACT, RescoreMethod.NBEST),
         TaskProgress.NONE);
@@ -105,17 +95,6 @@ public class WindowRerankBenchmark {
     System.out.printf(Locale.ROOT, "%nopened %d utterances, %d hypotheses%n", nbest.corpus().size(), nbest.corpus().hypothesisCount());
   }
 
-  /** References: the rank-1 sentences written under another seed, utterance by utterance. */
-  private static void references(Path hyps, Path refs, long seed, int n) throws IOException {
-    Path other = refs.resolveSibling(refs.getFileName() + ".src.csv");
-    SyntheticHypotheses.write(other, n, 1, seed);
-    try (BufferedWriter w = Files.newBufferedWriter(refs); HypothesesReader a = HypothesesReader.open(hyps, ImportOptions.strict(List.of()));
-        HypothesesReader b = HypothesesReader.open(other, ImportOptions.strict(List.of()))) {
-      w.write("utt_id,text\n");
-      while (a.hasNext() && b.hasNext()) w.write(a.next().uttId() + "," + b.next().first().text() + "\n");
-    }
-    Files.delete(other);
-  }
 
   @TearDown(Level.Trial)
   public void clean() throws IOException {

@@ -5,7 +5,7 @@ import java.util.Locale;
 import java.util.UUID;
 import java.util.prefs.Preferences;
 import javax.swing.SwingUtilities;
-import steelyard.gui.DemoFiles;
+import steelyard.demo.DemoFiles;
 import steelyard.gui.SteelyardWindow;
 import steelyard.gui.WindowPrefs;
 import steelyard.gui.model.OpenRequest;

@@ -165,7 +165,7 @@ public final class Workspace {
     TokenSequence ref = corpus.referenceTokens(u);
     if (ref == null) return null;
     Object2IntOpenHashMap<String> ids = new Object2IntOpenHashMap<>();
-    return new Aligner().alignment(ids(ref.tokens(), ids), ref.optional(), ids(tokens, ids), optional);
+    return new Aligner().alignment(ReferenceScorer.localIds(ref.tokens(), ids), ref.optional(), ReferenceScorer.localIds(tokens, ids), optional);
   }
 
   /**
@@ -273,19 +273,6 @@ public final class Workspace {
     return s.choose(scored);
   }
 
-  private static int[] ids(List<String> tokens, Object2IntOpenHashMap<String> ids) {
-    int[] out = new int[tokens.size()];
-    for (int k = 0; k < out.length; k++) {
-      String t = tokens.get(k);
-      int id = ids.getInt(t);
-      if (id == 0 && !ids.containsKey(t)) {
-        id = ids.size();
-        ids.put(t, id);
-      }
-      out[k] = id;
-    }
-    return out;
-  }
 
   @Override
   public String toString() {

@@ -13,7 +13,6 @@ import steelyard.io.ImportOptions;
 import steelyard.io.InputException;
 import steelyard.io.InputFiles;
 import steelyard.io.Reference;
-import steelyard.lm.BackoffModel;
 import steelyard.lm.LanguageModel;
 import steelyard.lm.LoadProgress;
 import steelyard.lm.ModelFiles;
@@ -50,13 +49,14 @@ final class WorkspaceLoader {
     RescoreConfig config = RescoreConfig.builder()
         .features(req.features())
         .weightsFile(req.weights())
+        .overrides(req.overrides())
         .modelPath(req.lm())
         .model(trained)
-        .modelLoading(new ModelFiles.LoadOptions(BackoffModel.DEFAULT_UNKNOWN_FLOOR_LOG10, null, modelProgress(req, progress)))
+        .modelLoading(new ModelFiles.LoadOptions(req.oovLog10Prob(), null, modelProgress(req, progress)))
         .normalisation(req.normalisation())
         .unit(req.unit())
         .method(req.methodOrDefault())
-        .importOptions(new ImportOptions(List.of(), null, req.maxBadRows(), warnings::add,
+        .importOptions(new ImportOptions(List.of(), req.primarySystem(), req.maxBadRows(), warnings::add,
             s -> warnings.add("skipped " + s.file() + ":" + s.line() + ": " + s.reason())))
         .build();
     if (req.lm() != null) progress.report(0, "reading the model " + req.lm().getFileName());

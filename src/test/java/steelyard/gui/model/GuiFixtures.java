@@ -1,70 +1,67 @@
 package steelyard.gui.model;
 
+import java.io.BufferedWriter;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
-import java.util.SplittableRandom;
+import java.util.Map;
+import java.util.TreeMap;
+import steelyard.io.HypothesesReader;
+import steelyard.io.ImportOptions;
+import steelyard.io.SyntheticHypotheses;
 
-/** Small seeded invented inputs for the window's view-model tests, and the project folder with the demo data. */
+/** Seeded invented inputs for the window's view-model tests, from the project's own generator. */
 public final class GuiFixtures {
-  private static final String[] WORDS = {"ten", "crates", "of", "pears", "bay", "nine", "load", "the", "leeks", "cold", "store"};
-
   private GuiFixtures() {}
 
-  /** The project root (where sample-hypotheses/ and models/ are). */
-  public static Path projectRoot() {
-    return Path.of("").toAbsolutePath();
+  /**
+   * Writes {@code utterances} utterances of six hypotheses each ({@link SyntheticHypotheses}: columns
+   * utt_id,rank,text,acoustic,lm) and references taken from another seed's sentences, so that errors are not
+   * zero; every 7th utterance has no reference, and one extra reference ({@code orphan}) has no hypotheses.
+   */
+  public static void writeRandomSet(Path hyps, Path refs, long seed, int utterances) throws IOException {
+    SyntheticHypotheses.write(hyps, utterances * 6L, 6, seed);
+    writeReferences(hyps, refs, seed + 1, utterances, true);
   }
 
   /**
-   * Writes {@code utterances} utterances of 1–6 hypotheses (columns utt_id,rank,text,acoustic,conf,group; conf a
-   * 0–1 confidence), garbled from a random reference; every 7th utterance has no reference and one extra
-   * reference has no hypotheses.
+   * References for the utterances of {@code hyps}: the sentences of seed {@code seed} of the same generator, so
+   * they differ from the hypotheses; with {@code gaps}, every 7th utterance has none and an extra one
+   * ({@code orphan}) has no hypotheses.
    */
-  public static void writeRandomSet(Path hyps, Path refs, long seed, int utterances) throws IOException {
-    SplittableRandom rnd = new SplittableRandom(seed);
-    StringBuilder h = new StringBuilder("utt_id,rank,text,acoustic,conf,group\n");
-    StringBuilder r = new StringBuilder("utt_id,text,group\n");
-    for (int u = 0; u < utterances; u++) {
-      String id = String.format(Locale.ROOT, "u%03d", u);
-      String group = "g" + (u % 3);
-      List<String> ref = new ArrayList<>();
-      int len = 2 + rnd.nextInt(7);
-      for (int k = 0; k < len; k++) ref.add(WORDS[rnd.nextInt(WORDS.length)]);
-      if (u % 7 != 3) r.append(id).append(',').append(String.join(" ", ref)).append(',').append(group).append('\n');
-      int n = 1 + rnd.nextInt(6);
-      double ac = -10 * len;
-      for (int rank = 1; rank <= n; rank++) {
-        ac -= rnd.nextDouble() * 4;
-        List<String> t = new ArrayList<>(ref);
-        int edits = rnd.nextInt(3);
-        for (int e = 0; e < edits && !t.isEmpty(); e++) {
-          int pos = rnd.nextInt(t.size());
-          switch (rnd.nextInt(3)) {
-            case 0: t.set(pos, WORDS[rnd.nextInt(WORDS.length)]); break;
-            case 1: t.remove(pos); break;
-            default: t.add(pos, WORDS[rnd.nextInt(WORDS.length)]);
-          }
-        }
-        h.append(id).append(',').append(rank).append(',').append(String.join(" ", t)).append(',')
-            .append(String.format(Locale.ROOT, "%.3f", ac)).append(',')
-            .append(String.format(Locale.ROOT, "%.3f", 0.05 + 0.9 * rnd.nextDouble())).append(',').append(group).append('\n');
+  public static void writeReferences(Path hyps, Path refs, long seed, int utterances, boolean gaps) throws IOException {
+    Path other = refs.resolveSibling(refs.getFileName() + ".source.csv");
+    SyntheticHypotheses.write(other, utterances, 1, seed);
+    try (BufferedWriter w = Files.newBufferedWriter(refs); HypothesesReader a = HypothesesReader.open(hyps, ImportOptions.strict(List.of()));
+        HypothesesReader b = HypothesesReader.open(other, ImportOptions.strict(List.of()))) {
+      w.write("utt_id,text\n");
+      for (int u = 0; a.hasNext() && b.hasNext(); u++) {
+        String id = a.next().uttId();
+        String text = b.next().first().text();
+        if (!gaps || u % 7 != 3) w.write(id + "," + text + "\n");
+        if (gaps && u == 0) w.write("orphan," + text + "\n");
       }
     }
-    r.append("orphan,ten crates of pears,g9\n");
-    Files.writeString(hyps, h);
-    Files.writeString(refs, r);
+    Files.delete(other);
   }
 
-  /** A word bigram model as ARPA text over the fixture's words (log10 values, hand-written). */
-  public static void writeTinyModel(Path arpa) throws IOException {
-    StringBuilder sb = new StringBuilder("\\data\\\nngram 1=" + (WORDS.length + 3) + "\n\n\\1-grams:\n");
-    sb.append("-99\t<s>\t-0.3\n-1.0\t</s>\n-2.0\t<unk>\n");
-    for (int i = 0; i < WORDS.length; i++) sb.append(String.format(Locale.ROOT, "%.2f\t%s\t-0.2%n", -0.8 - 0.05 * i, WORDS[i]));
-    sb.append("\n\\end\\\n");
-    Files.writeString(arpa, sb);
+  /** A unigram model of the words of {@code refs} (log10 of relative frequencies), as ARPA text. */
+  public static void writeTinyModel(Path refs, Path arpa) throws IOException {
+    Map<String, Integer> counts = new TreeMap<>();
+    int total = 0;
+    for (String line : Files.readAllLines(refs).subList(1, Files.readAllLines(refs).size())) {
+      for (String w : line.substring(line.indexOf(',') + 1).split(" ")) {
+        counts.merge(w, 1, Integer::sum);
+        total++;
+      }
+    }
+    StringBuilder sb = new StringBuilder("\\data\\\nngram 1=" + (counts.size() + 3) + "\n\n\\1-grams:\n");
+    sb.append("-99\t<s>\t0\n-1\t</s>\n-3\t<unk>\n");
+    for (Map.Entry<String, Integer> e : counts.entrySet()) {
+      sb.append(String.format(Locale.ROOT, "%.4f\t%s%n", Math.log10((double) e.getValue() / total) - 0.1, e.getKey()));
+    }
+    Files.writeString(arpa, sb.append("\n\\end\\\n"));
   }
 }

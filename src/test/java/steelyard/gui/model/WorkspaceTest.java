@@ -42,11 +42,11 @@ class WorkspaceTest {
     refs = dir.resolve("refs.csv");
     lm = dir.resolve("tiny.arpa");
     GuiFixtures.writeRandomSet(hyps, refs, 20261202L, 60);
-    GuiFixtures.writeTinyModel(lm);
+    GuiFixtures.writeTinyModel(refs, lm);
   }
 
   private Workspace open() {
-    return Workspace.open(OpenRequest.of(hyps, refs, lm, null, FeatureSpec.parseList("acoustic,conf:linear"), null,
+    return Workspace.open(OpenRequest.of(hyps, refs, lm, null, FeatureSpec.parseList("acoustic,lm"), null,
         NormalisationOptions.EXACT, RescoreMethod.NBEST), TaskProgress.NONE);
   }
 
@@ -59,7 +59,7 @@ class WorkspaceTest {
   private JsonNode cli(String method, double lambda, double mu, double alpha, double lambda2, double mu2) throws IOException {
     Path json = dir.resolve("summary-" + method + ".json");
     int code = Main.run("rescore", "--hyps", hyps.toString(), "--refs", refs.toString(), "--lm", lm.toString(),
-        "--features", "acoustic,conf:linear", "--method", method, "--lm-weight", Double.toString(lambda),
+        "--features", "acoustic,lm", "--method", method, "--lm-weight", Double.toString(lambda),
         "--length-weight", Double.toString(mu), "--posterior-sharpness", Double.toString(alpha),
         "--lattice-lm-weight", Double.toString(lambda2), "--lattice-length-weight", Double.toString(mu2),
         "--json", json.toString(), "--threads", "1");
@@ -124,7 +124,7 @@ class WorkspaceTest {
 
   @Test
   void aBadRowFailsWithTheCommandLinesMessage() throws IOException {
-    Files.writeString(hyps, "utt_id,rank,text,acoustic,conf\nu1,1,ten crates,-3,0.5\nu1,x,ten,-4,0.5\n");
+    Files.writeString(hyps, "utt_id,rank,text,acoustic,lm\nu1,1,ten crates,-3,-5\nu1,x,ten,-4,-5\n");
     assertThatThrownBy(this::open).isInstanceOf(InputException.class)
         .hasMessage(hyps + ":3: rank 'x' is not a whole number; expected an integer rank ≥ 1");
   }
@@ -145,7 +145,7 @@ class WorkspaceTest {
     open().saveWeights(wf, weights(open(), 3, 1, 1, 0, 0));
     Workspace w = Workspace.open(OpenRequest.of(hyps, refs, lm, wf, List.of(), null, NormalisationOptions.EXACT, null),
         TaskProgress.NONE);
-    assertThat(w.corpus().featureNames()).containsExactly("acoustic", "conf");
+    assertThat(w.corpus().featureNames()).containsExactly("acoustic", "lm");
     assertThat(w.initialWeights().lmWeight()).isEqualTo(3.0);
   }
 }

@@ -1,10 +1,10 @@
-package steelyard.gui;
+package steelyard.demo;
 
 import java.net.URISyntaxException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 
-/** Where the bundled demo data lives: the project folder holding {@code sample-hypotheses/} and {@code models/}. */
+/** Where the bundled demo data lives: the project folder holding {@code sample-hypotheses/} and {@code models/} (for {@code demo} and the window). */
 public final class DemoFiles {
   private DemoFiles() {}
 
