@@ -18,7 +18,7 @@ import steelyard.text.Unit;
  */
 final class ChartsView extends JPanel {
   private static final long serialVersionUID = 1L;
-  final ChartBox error = new ChartBox("charts.error", "Error against the LM weight λ", "error-against-lambda");
+  final ChartBox error = new ChartBox("charts.error", "Error against λ", "error-against-lambda");
   final ChartBox helped = new ChartBox("charts.helped", "Helped and hurt against λ", "helped-hurt-against-lambda");
   final ChartBox surface = new ChartBox("charts.surface", "Error over λ × μ", "error-surface");
   final ChartBox groups = new ChartBox("charts.groups", "Error per group", "error-per-group");
