@@ -89,6 +89,39 @@ final class CandidateTable {
     return best;
   }
 
+  /** Totals under {@code w} of every candidate of {@code utts} (other slots 0), {@code double[H]}, as {@link #total} sums them. */
+  double[] totalsAt(int[] utts, double[] w, Workers workers) {
+    double[] out = new double[errors.length];
+    workers.blocks(utts.length, (b, from, to) -> {
+      double[] buf = new double[0];
+      for (int i = from; i < to; i++) {
+        int u = utts[i];
+        int n = start[u + 1] - start[u];
+        if (buf.length < n) buf = new double[n];
+        java.util.Arrays.fill(buf, 0, n, 0);
+        System.arraycopy(totals(start[u], n, w, buf), 0, out, start[u], n);
+      }
+    });
+    return out;
+  }
+
+  /** Σ errors over {@code utts} of the candidate with the highest of {@code totals} (ties to the smaller tie order). */
+  long errorsFrom(int[] utts, double[] totals, Workers workers) {
+    long[] sums = new long[Workers.blockCount(utts.length)];
+    workers.blocks(utts.length, (b, from, to) -> {
+      for (int i = from; i < to; i++) {
+        int u = utts[i];
+        int best = start[u];
+        for (int h = start[u] + 1; h < start[u + 1]; h++)
+          if (totals[h] > totals[best] || (totals[h] == totals[best] && tie[h] < tie[best])) best = h;
+        sums[b] += errors[best];
+      }
+    });
+    long sum = 0;
+    for (long x : sums) sum += x;
+    return sum;
+  }
+
   /** Errors of the pick under {@code w} for each of {@code utts}, aligned with it. */
   int[] errorsOf(int[] utts, double[] w, Workers workers) {
     int[] out = new int[utts.length];

@@ -14,8 +14,8 @@ import steelyard.rescore.LineEnvelope;
  * into the corpus step function, so the corpus is never re-evaluated per interval.
  *
  * <p>Cost: per utterance of n candidates O(n·D) for the lines, O(n) to find the winners just inside both ends of
- * the range and to drop the lines that cannot reach the envelope between them ({@link #reaching}; typically all
- * but a handful), O(m log m) for the envelope of the m lines left; then
+ * the range and to drop the lines that cannot reach the envelope between them ({@link LineFilter}; typically
+ * all but a handful), O(m log m) for the envelope of the m lines left; then
  * O(E log E) for E events (a stable radix sort). Utterances whose candidates all have the same error count
  * add a constant and are skipped unless the helped/hurt/changed counts are wanted. Memory: three
  * {@code double[n]}/{@code int[n]} per utterance while it is processed, and 12 bytes per event (28 with counts).
@@ -43,17 +43,24 @@ final class LineSearch {
    */
   static StepFunction run(CandidateTable t, double[] w, double[] d, double lo, double hi, int[] utts, boolean counts,
       Workers workers) {
+    return run(t, w, null, d, lo, hi, utts, counts, workers);
+  }
+
+  /** As above, with the totals at {@code w} already computed ({@link CandidateTable#totalsAt}; null: compute them). */
+  static StepFunction run(CandidateTable t, double[] w, double[] totals, double[] d, double lo, double hi, int[] utts,
+      boolean counts, Workers workers) {
     if (!(lo < hi)) throw new IllegalArgumentException("empty range: " + lo + " .. " + hi);
     Events[] blocks = new Events[Workers.blockCount(utts.length)];
     workers.blocks(utts.length, (b, from, to) -> {
       Events e = new Events();
-      for (int i = from; i < to; i++) utterance(t, utts[i], w, d, lo, hi, counts, e);
+      for (int i = from; i < to; i++) utterance(t, utts[i], w, totals, d, lo, hi, counts, e);
       blocks[b] = e;
     });
     return merge(blocks, lo, hi, counts);
   }
 
-  private static void utterance(CandidateTable t, int u, double[] w, double[] d, double lo, double hi, boolean counts, Events e) {
+  private static void utterance(CandidateTable t, int u, double[] w, double[] totals, double[] d, double lo, double hi,
+      boolean counts, Events e) {
     int s = t.start[u];
     int n = t.start[u + 1] - s;
     int first = t.firstErrors[u];
@@ -61,15 +68,13 @@ final class LineSearch {
       e.base += t.errors[s];
       return;
     }
-    double[] a = t.totals(s, n, w, new double[n]);
+    double[] a = totals == null ? t.totals(s, n, w, new double[n]) : java.util.Arrays.copyOfRange(totals, s, s + n);
     double[] b = t.totals(s, n, d, new double[n]);
-    int left = leftWinner(a, b, t.tie, s, lo);
-    int right = rightWinner(a, b, t.tie, s, hi);
-    if (left == right) { // by convexity the same line wins on all of (lo, hi)
-      start(t, s + left, first, counts, e);
+    int[] keep = LineFilter.reaching(a, b, t.tie, s, lo, hi);
+    if (keep.length == 1) { // one line wins on all of (lo, hi)
+      start(t, s + keep[0], first, counts, e);
       return;
     }
-    int[] keep = reaching(a, b, left, right);
     double[] ka = new double[keep.length];
     double[] kb = new double[keep.length];
     int[] tie = new int[keep.length];
@@ -103,51 +108,6 @@ final class LineSearch {
       e.hurt += t.errors[win] > first ? 1 : 0;
       e.changed += t.unchanged[win] ? 0 : 1;
     }
-  }
-
-  /**
-   * The line that is highest just right of {@code lo}: at −∞ the smallest slope; else the highest value at lo,
-   * ties to the larger slope (it wins right of lo); identical lines to the smaller tie order.
-   */
-  private static int leftWinner(double[] a, double[] b, int[] tieOrder, int s, double lo) {
-    int best = 0;
-    for (int i = 1; i < a.length; i++) {
-      int c = lo == Double.NEGATIVE_INFINITY ? Double.compare(b[best], b[i]) : Double.compare(a[i] + lo * b[i], a[best] + lo * b[best]);
-      if (c == 0) c = lo == Double.NEGATIVE_INFINITY ? Double.compare(a[i], a[best]) : Double.compare(b[i], b[best]);
-      if (c > 0 || (c == 0 && a[i] == a[best] && b[i] == b[best] && tieOrder[s + i] < tieOrder[s + best])) best = i;
-    }
-    return best;
-  }
-
-  /** The line that is highest just left of {@code hi}: at +∞ the largest slope; else ties to the smaller slope. */
-  private static int rightWinner(double[] a, double[] b, int[] tieOrder, int s, double hi) {
-    int best = 0;
-    for (int i = 1; i < a.length; i++) {
-      int c = hi == Double.POSITIVE_INFINITY ? Double.compare(b[i], b[best]) : Double.compare(a[i] + hi * b[i], a[best] + hi * b[best]);
-      if (c == 0) c = hi == Double.POSITIVE_INFINITY ? Double.compare(a[i], a[best]) : Double.compare(b[best], b[i]);
-      if (c > 0 || (c == 0 && a[i] == a[best] && b[i] == b[best] && tieOrder[s + i] < tieOrder[s + best])) best = i;
-    }
-    return best;
-  }
-
-  /**
-   * The lines that can reach the upper envelope between the left and the right winner: a pre-filter in O(n), not
-   * an envelope. A line highest somewhere in (lo, hi) has a slope between theirs and, the envelope being convex,
-   * reaches their common value at their crossing x* (if it is highest left of x*, it rises at least as fast as
-   * the left winner from there; right of x*, it falls at most as fast as the right winner). Kept with a margin of
-   * 10⁻⁹ relative, so rounding can only keep a line too many.
-   */
-  private static int[] reaching(double[] a, double[] b, int left, int right) {
-    double x = (a[left] - a[right]) / (b[right] - b[left]);
-    double level = a[left] + b[left] * x;
-    double margin = 1e-9 * (1 + Math.abs(a[left]) + Math.abs(b[left] * x));
-    int[] keep = new int[a.length];
-    int n = 0;
-    for (int i = 0; i < a.length; i++) {
-      boolean inside = b[left] <= b[i] && b[i] <= b[right] && a[i] + b[i] * x >= level - margin;
-      if (inside || i == left || i == right) keep[n++] = i;
-    }
-    return java.util.Arrays.copyOf(keep, n);
   }
 
   /** Changes of (helped, hurt, changed), each in −1 … 1, packed as three 2-bit fields (0 when none changes). */

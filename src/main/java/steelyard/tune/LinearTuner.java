@@ -35,6 +35,8 @@ final class LinearTuner {
   private final Workers workers;
   private int passes;
   private int lineSearches;
+  /** Totals of every candidate at the climb's current weights (exact, as {@link CandidateTable#total} sums them). */
+  private double[] totals;
 
   /**
    * @param dims      the tunable columns; the others keep their start values
@@ -80,7 +82,8 @@ final class LinearTuner {
   }
 
   private Outcome climb(double[] w, SplittableRandom rnd) {
-    long[] current = {table.errors(utts, w, workers)};
+    totals = table.totalsAt(utts, w, workers);
+    long[] current = {table.errorsFrom(utts, totals, workers)};
     for (int pass = 0; pass < effort.maxPasses(); pass++) {
       passes++;
       boolean improved = false;
@@ -97,17 +100,19 @@ final class LinearTuner {
   private boolean step(double[] w, double[] d, boolean centre, long[] current) {
     double[] r = range(w, d);
     if (!(r[0] < r[1])) return false;
-    StepFunction f = LineSearch.run(table, w, d, r[0], r[1], utts, false, workers);
+    StepFunction f = LineSearch.run(table, w, totals, d, r[0], r[1], utts, false, workers);
     lineSearches++;
     StepFunction.Choice c = f.best();
     if (c.errors() > current[0] || (c.errors() == current[0] && !centre) || c.x() == 0) return false;
     double[] moved = w.clone();
     for (int k = 0; k < moved.length; k++) if (d[k] != 0) moved[k] = w[k] + c.x() * d[k];
     clip(moved);
-    long e = table.errors(utts, moved, workers);
+    double[] movedTotals = table.totalsAt(utts, moved, workers);
+    long e = table.errorsFrom(utts, movedTotals, workers);
     if (e > current[0]) return false;
     boolean better = e < current[0];
     System.arraycopy(moved, 0, w, 0, w.length);
+    totals = movedTotals;
     current[0] = e;
     return better;
   }

@@ -58,7 +58,7 @@ final class TuneRun {
       figures.put(RescoreMethod.NBEST, np.figures());
       inSample.put(RescoreMethod.NBEST, np.errors());
     }
-    NetworkData data = new NetworkData(input, table);
+    NetworkData data = networkCount == 0 ? null : new NetworkData(input, table);
     double share = networkCount == 0 ? 0 : (0.95 - nbestShare) / networkCount;
     for (RescoreMethod m : methods) if (m != RescoreMethod.NBEST) tuneNetwork(data, m, np, root.split(), share);
     RescoreMethod chosen = choose();

@@ -54,11 +54,11 @@ public record TuneSettings(
       throw new IllegalArgumentException("folds, restarts, random directions, sample >= 0; threads, passes, k-best, pool iterations >= 1");
   }
 
-  public static final int DEFAULT_OUTER_SAMPLE = 2000;
+  public static final int DEFAULT_OUTER_SAMPLE = 1000;
 
   /**
    * All methods, the default weights, 5 folds, 1 thread, 5 restarts, 3 random directions, at most 30 passes,
-   * 10-best searches for the pools, at most 8 pool rounds, an outer sample of 2000 utterances, a surface.
+   * 10-best searches for the pools, at most 8 pool rounds, an outer sample of 1000 utterances, a surface.
    */
   public static TuneSettings defaults() {
     return new TuneSettings(Set.of(), null, Map.of(), DEFAULT_FOLDS, DEFAULT_SEED, 1, 5, 3, 30, 10, 8, DEFAULT_OUTER_SAMPLE, true);

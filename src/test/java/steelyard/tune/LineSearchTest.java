@@ -111,6 +111,8 @@ class LineSearchTest {
         d[c] = LinearTuner.gaussian(rnd);
       }
       StepFunction f = LineSearch.run(t, w, d, LO, HI, t.all(), false, Workers.single());
+      StepFunction whole = LineSearch.run(t, w, d, Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY, t.all(), false, Workers.single());
+      StepFunction right = LineSearch.run(t, w, d, 0, Double.POSITIVE_INFINITY, t.all(), false, Workers.single());
       StepFunction.Choice best = f.best();
       double step = (HI - LO) / GRID;
       long gridMin = Long.MAX_VALUE;
@@ -121,6 +123,8 @@ class LineSearchTest {
         double x = LO + (i + 0.5) * step;
         brute[i] = bruteForceErrors(dev, hypErrors, w, d, x);
         if (!nearBreak(f, x)) assertThat(f.errors[f.intervalAt(x)]).as("seed %d, x = %s", seed, x).isEqualTo(brute[i]);
+        if (!nearBreak(whole, x)) assertThat(whole.errors[whole.intervalAt(x)]).as("unbounded, x = %s", x).isEqualTo(brute[i]);
+        if (x > 0 && !nearBreak(right, x)) assertThat(right.errors[right.intervalAt(x)]).as("x ≥ 0, x = %s", x).isEqualTo(brute[i]);
         gridMin = Math.min(gridMin, brute[i]);
       }
       for (int i = 0; i < GRID; i++) {

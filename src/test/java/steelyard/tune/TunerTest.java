@@ -72,6 +72,20 @@ class TunerTest {
     }
   }
 
+  /** The network search on a sample of the utterances, then λ′ and μ′ again on all of them. */
+  @Test
+  void latticeTuningOnASampleIsNeverWorseThanTheStartAndTheSameForAnyThreadCount() {
+    TuneInput in = input(12, 90);
+    TuneSettings s = fast().withMethods(Set.of(RescoreMethod.LATTICE)).withOuterSample(30);
+    TuneResult one = Tuner.tune(in, s, TuneProgress.NONE, () -> false);
+    TuneResult two = Tuner.tune(in, s.withThreads(2), TuneProgress.NONE, () -> false);
+    MethodFigures f = one.figures(RescoreMethod.LATTICE);
+    assertThat(f.devErrors()).isLessThanOrEqualTo(DevErrors.score(in, in.start(), RescoreMethod.LATTICE, 1).errors());
+    assertThat(DevErrors.score(in, f.weights(), RescoreMethod.LATTICE, 1).errors()).isEqualTo(f.devErrors());
+    assertThat(two.weights()).isEqualTo(one.weights());
+    assertThat(two.cvErrorRate()).isEqualTo(one.cvErrorRate());
+  }
+
   @Test
   void onlyTheListedWeightsMove() {
     TuneInput in = input(3, 40);
