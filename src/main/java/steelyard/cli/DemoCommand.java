@@ -2,7 +2,6 @@ package steelyard.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
-import java.net.URISyntaxException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
@@ -14,6 +13,7 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import steelyard.demo.DemoRun;
 import steelyard.io.ImportOptions;
+import steelyard.demo.DemoFiles;
 import steelyard.io.InputException;
 import steelyard.io.OutputSet;
 
@@ -43,7 +43,7 @@ public final class DemoCommand implements Callable<Integer> {
   public Integer call() {
     PrintWriter err = spec.commandLine().getErr();
     ImportOptions imports = new ImportOptions(List.of(), null, 0, w -> RescoreSupport.warn(err, w), s -> { });
-    List<DemoRun.Part> parts = DemoRun.bundled(dataDir != null ? dataDir : projectRoot(), "--data-dir", imports, run.effectiveThreads(), run.seed);
+    List<DemoRun.Part> parts = DemoRun.bundled(dataDir != null ? dataDir : DemoFiles.root(), "--data-dir", imports, run.effectiveThreads(), run.seed);
     try {
       Files.createDirectories(outDir);
     } catch (IOException e) {
@@ -61,17 +61,5 @@ public final class DemoCommand implements Callable<Integer> {
     out.print(DemoRun.summary(r));
     out.flush();
     return Main.OK;
-  }
-
-  /** The folder above {@code target/} when running from the built jar, else the current folder. */
-  private static Path projectRoot() {
-    try {
-      Path jar = Path.of(DemoCommand.class.getProtectionDomain().getCodeSource().getLocation().toURI());
-      Path candidate = jar.getParent() == null ? null : jar.getParent().getParent();
-      if (candidate != null && Files.isDirectory(candidate.resolve("sample-hypotheses"))) return candidate;
-    } catch (URISyntaxException | SecurityException | NullPointerException e) {
-      // fall through to the current folder
-    }
-    return Path.of("").toAbsolutePath();
   }
 }

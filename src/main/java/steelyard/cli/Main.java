@@ -31,6 +31,7 @@ import steelyard.io.OutputSet;
       NetworkCommand.class,
       RunsCommand.class,
       DemoDataCommand.class,
+      GuiCommand.class,
       CommandLine.HelpCommand.class
     })
 public final class Main implements Runnable {
