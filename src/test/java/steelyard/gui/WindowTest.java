@@ -34,7 +34,13 @@ import steelyard.cli.Main;
  */
 @ExtendWith(XvfbDisplay.class)
 class WindowTest {
-  /** The λ the slider is moved to (the demo weights file has 16). */
+  /** The N-best λ of the demo weights file, with which the window opens. */
+  static double fileLambda() throws IOException {
+    return new com.fasterxml.jackson.databind.ObjectMapper().readTree(ROOT.resolve("models/voice-demo.weights.json").toFile())
+        .path("methods").path("nbest").path("lm_weight").asDouble();
+  }
+
+  /** The λ the slider is moved to (the demo weights file has a larger one). */
   static final double LAMBDA = 4;
   static final Path ROOT = Path.of("").toAbsolutePath();
   static final Path SHOTS = ROOT.resolve("target/screenshots");
@@ -51,12 +57,14 @@ class WindowTest {
     out.set(13, String.join(",", f));
     bad = dir.resolve("voice-broken.nbest.csv");
     Files.write(bad, out, StandardCharsets.UTF_8);
-    badMessage = cliError("rescore", "--hyps", bad.toString(), "--features", "acoustic,lm", "--json", dir.resolve("x.json").toString());
+    badMessage = cliError("rescore", "--hyps", bad.toString(), "--features", "acoustic,lm", "--out", dir.resolve("x.csv").toString(),
+        "--json", dir.resolve("x.json").toString());
   }
 
   @Test
   void theWindowShowsWhatTheCommandLineComputes(XvfbDisplay.Display display) throws Exception {
-    Map<String, String> at16 = picks(16);
+    double opened = fileLambda();
+    Map<String, String> at16 = picks(opened);
     Map<String, String> atLambda = picks(LAMBDA);
     String utt = at16.keySet().stream().filter(u -> !at16.get(u).equals(atLambda.get(u))).findFirst().orElseThrow();
     Properties r = scenario(display, utt);
@@ -67,7 +75,7 @@ class WindowTest {
     assertThat(r.getProperty("edt.violations")).as(r.getProperty("edt.first")).isEqualTo("0");
     assertThat(r.getProperty("after.lambda")).isEqualTo(Double.toString(LAMBDA));
 
-    JsonNode before = summary(run(16, "nbest", 1));
+    JsonNode before = summary(run(opened, "nbest", 1));
     JsonNode after = summary(run(LAMBDA, "nbest", 1));
     assertThat(r.getProperty("before.error")).isEqualTo("WER " + percent(before.get("error_rate").asDouble()));
     assertThat(r.getProperty("after.error")).isEqualTo("WER " + percent(after.get("error_rate").asDouble()));
