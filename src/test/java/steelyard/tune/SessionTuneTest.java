@@ -28,8 +28,8 @@ class SessionTuneTest {
         .model(ModelFiles.load(Path.of("models/voice-3gram.arpa.gz"))).build());
     ScoredSet set = session.loadAll(HYPS, REFS, 2, RescoreSession.LoadListener.NONE, () -> false);
     TuneInput in = TuneInput.from(set, session);
-    TuneSettings s = TuneSettings.defaults().withMethods(EnumSet.of(RescoreMethod.NBEST, RescoreMethod.LATTICE)).withFolds(3)
-        .withSearch(2, 2, 20).withPools(5, 4).withThreads(2);
+    TuneSettings s = TuneSettings.builder().methods(EnumSet.of(RescoreMethod.NBEST, RescoreMethod.LATTICE)).folds(3)
+        .search(2, 2, 20).pools(5, 4).threads(2).build();
     TuneResult r = Tuner.tune(in, s, TuneProgress.NONE, () -> false);
     assertThat(r.utterances()).isEqualTo(300);
     for (MethodFigures f : r.perMethod()) {
