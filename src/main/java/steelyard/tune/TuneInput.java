@@ -1,12 +1,9 @@
 package steelyard.tune;
 
-import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
 import steelyard.lm.LanguageModel;
-import steelyard.rescore.RescoreSession;
 import steelyard.rescore.RescoreWeights;
-import steelyard.rescore.ScoredSet;
 
 /**
  * The dev data and starting point of a tuning run, all in memory.
@@ -39,20 +36,6 @@ public record TuneInput(
   /** With the standard chooser ({@link ChooserFactory#standard}). */
   public static TuneInput of(List<DevUtterance> utterances, List<String> featureNames, LanguageModel model, RescoreWeights start) {
     return new TuneInput(utterances, featureNames, model, start, ChooserFactory.standard(featureNames, model));
-  }
-
-  /**
-   * The dev set of a loaded session ({@link RescoreSession#loadAll}): every utterance that has a reference, the
-   * session's feature names, model and weights as the start, and its choice ({@code session.withWeights(w, m)})
-   * as the chooser. Utterances without a reference ({@link ScoredSet#missingReferences()}) and references
-   * without hypotheses ({@link ScoredSet#missingHypotheses()}) are not part of the objective, since no weight
-   * changes their errors; the caller reports them.
-   */
-  public static TuneInput from(ScoredSet set, RescoreSession session) {
-    List<DevUtterance> dev = new ArrayList<>();
-    for (ScoredSet.Entry e : set.utterances()) if (e.reference() != null) dev.add(new DevUtterance(e.scores(), e.reference(), e.group()));
-    return new TuneInput(dev, set.featureNames(), session.model(), session.weights(),
-        (w, m) -> session.withWeights(w, m)::choose);
   }
 
   public int size() {

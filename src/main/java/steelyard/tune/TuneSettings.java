@@ -7,7 +7,8 @@ import java.util.TreeMap;
 import steelyard.rescore.RescoreMethod;
 
 /**
- * How a tuning run searches. Immutable; made by {@link #defaults()} or a {@link #builder()}.
+ * How a tuning run searches. Immutable; made by {@link #defaults()} or a {@link #builder()}; the {@code with…}
+ * methods return changed copies.
  *
  * @param methods           methods to tune (empty: all four, keeping the one with the lowest cross-validated error)
  * @param tune              names of the weights that move ({@link WeightNames}); null: the default set, i.e. every
@@ -132,6 +133,46 @@ public record TuneSettings(
       return new TuneSettings(methods, tune, ranges, folds, seed, threads, restarts, randomDirections, maxPasses, kBest,
           maxPoolIterations, outerSample, surface);
     }
+  }
+
+  public TuneSettings withMethods(Set<RescoreMethod> m) {
+    return toBuilder().methods(m).build();
+  }
+
+  public TuneSettings withTune(Set<String> names) {
+    return toBuilder().tune(names).build();
+  }
+
+  public TuneSettings withRanges(Map<String, WeightRange> r) {
+    return toBuilder().ranges(r).build();
+  }
+
+  public TuneSettings withFolds(int k) {
+    return toBuilder().folds(k).build();
+  }
+
+  public TuneSettings withSeed(long s) {
+    return toBuilder().seed(s).build();
+  }
+
+  public TuneSettings withThreads(int t) {
+    return toBuilder().threads(t).build();
+  }
+
+  public TuneSettings withSearch(int restarts, int randomDirections, int maxPasses) {
+    return toBuilder().search(restarts, randomDirections, maxPasses).build();
+  }
+
+  public TuneSettings withPools(int kBest, int maxPoolIterations) {
+    return toBuilder().pools(kBest, maxPoolIterations).build();
+  }
+
+  public TuneSettings withOuterSample(int n) {
+    return toBuilder().outerSample(n).build();
+  }
+
+  public TuneSettings withSurface(boolean s) {
+    return toBuilder().surface(s).build();
   }
 
   /** The allowed range of {@code name}: the override when given, else the default. */

@@ -27,7 +27,7 @@ class SessionTuneTest {
     RescoreSession session = RescoreSession.open(RescoreConfig.builder().features(FeatureSpec.parseList("acoustic,lm"))
         .model(ModelFiles.load(Path.of("models/voice-3gram.arpa.gz"))).build());
     ScoredSet set = session.loadAll(HYPS, REFS, 2, RescoreSession.LoadListener.NONE, () -> false);
-    TuneInput in = TuneInput.from(set, session);
+    TuneInput in = TuneInput.of(set, session, session.weights());
     TuneSettings s = TuneSettings.builder().methods(EnumSet.of(RescoreMethod.NBEST, RescoreMethod.LATTICE)).folds(3)
         .search(2, 2, 20).pools(5, 4).threads(2).build();
     TuneResult r = Tuner.tune(in, s, TuneProgress.NONE, () -> false);
