@@ -13,6 +13,7 @@ import steelyard.eval.CorpusScore;
 import steelyard.eval.EditCounts;
 import steelyard.eval.MissingHypothesisPolicy;
 import steelyard.rescore.ModelIdentity;
+import steelyard.rescore.RescoreSummary;
 import steelyard.rescore.WeightsFile;
 import steelyard.rescore.WeightsSpec;
 import steelyard.text.Unit;
@@ -261,6 +262,20 @@ public record RunRecord(
       utterances = UtteranceCounts.of(s);
       warnings.addAll(s.warnings());
       return this;
+    }
+
+    /**
+     * Everything a rescoring run with references says: its method, references without hypotheses counted as all
+     * deletions, the totals of the picks, the per-utterance rows in reference-file order
+     * ({@link UtteranceCounts#of(RescoreSummary)}), the bootstrap interval and the run's warnings (appended).
+     */
+    public Builder rescored(String methodLabel, RescoreSummary s, Bootstrap.Interval ci, int resampleCount, long randomSeed) {
+      method = methodLabel;
+      missingPolicy = MissingHypothesisPolicy.ALL_DELETIONS;
+      totals = s.chosen();
+      utterances = UtteranceCounts.of(s);
+      warnings.addAll(s.warnings());
+      return interval(ci == null ? Bootstrap.Interval.UNDEFINED : ci, resampleCount, randomSeed);
     }
 
     /** The record, with the inputs hashed now and the wall time measured to now. */

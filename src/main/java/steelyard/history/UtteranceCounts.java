@@ -8,6 +8,7 @@ import java.util.List;
 import java.util.Objects;
 import steelyard.eval.CorpusScore;
 import steelyard.eval.UtteranceScores;
+import steelyard.rescore.RescoreSummary;
 
 /**
  * The per-utterance error counts of one run, in reference-file order (the order {@code compare} resamples in),
@@ -44,6 +45,24 @@ public final class UtteranceCounts {
     for (int r = 0; r < t.size(); r++) b.add(t.uttId(r), status(t.status(r)), t.errors(r), t.referenceTokens(r));
     for (String id : score.missingReferences()) b.add(id, UtteranceStatus.NO_REFERENCE, 0, 0);
     return b.build();
+  }
+
+  /**
+   * The rows of a rescoring run with references, in reference-file order when the summary knows it
+   * ({@link RescoreSummary#referenceOrder}): each scored utterance (a reference without hypotheses counted as all
+   * deletions), then the hypothesis utterances without a reference.
+   */
+  public static UtteranceCounts of(RescoreSummary s) {
+    List<String> ids = s.scoredIds();
+    int[] errors = s.errorsPerUtterance();
+    int[] tokens = s.referenceTokensPerUtterance();
+    java.util.Set<String> missing = new java.util.HashSet<>(s.missingHypothesisIds());
+    Builder b = new Builder(ids.size() + s.missingReferenceIds().size());
+    for (int k = 0; k < ids.size(); k++)
+      b.add(ids.get(k), missing.contains(ids.get(k)) ? UtteranceStatus.MISSING_HYPOTHESIS : UtteranceStatus.SCORED, errors[k], tokens[k]);
+    for (String id : s.missingReferenceIds()) b.add(id, UtteranceStatus.NO_REFERENCE, 0, 0);
+    UtteranceCounts rows = b.build();
+    return s.referenceOrder().isEmpty() ? rows : rows.inOrderOf(s.referenceOrder());
   }
 
   private static UtteranceStatus status(byte s) {

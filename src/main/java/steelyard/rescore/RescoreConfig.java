@@ -33,7 +33,7 @@ import steelyard.text.Unit;
  *                      passed on and also collected by the session
  * @param normalisation the scoring normalisation (references, length term, MBR, networks)
  * @param unit          the scoring unit; null to infer it (weights file, then model, then words)
- * @param method        how to choose
+ * @param method        how to choose; null: the method the weights file records (version 3), else N-best
  * @param maxHyps       keep at most this many hypotheses per system, by rank (0: all)
  * @param importOptions how hypotheses and references are imported; the session replaces its features
  */
@@ -55,7 +55,6 @@ public record RescoreConfig(
     if (overrides == null) overrides = new WeightsSpec();
     if (modelLoading == null) modelLoading = new ModelFiles.LoadOptions(BackoffModel.DEFAULT_UNKNOWN_FLOOR_LOG10, null, null);
     if (normalisation == null) normalisation = NormalisationOptions.EXACT;
-    if (method == null) method = RescoreMethod.NBEST;
     if (maxHyps < 0) throw new IllegalArgumentException("maxHyps must be >= 0 (0 = all): " + maxHyps);
     if (importOptions == null) importOptions = new ImportOptions(List.of(), null, 0, w -> { }, s -> { });
   }

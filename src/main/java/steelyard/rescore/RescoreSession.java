@@ -27,7 +27,8 @@ import steelyard.text.Unit;
  *       search's λ′ is not 0;</li>
  *   <li>settles the scoring unit (given, else the weights file's, else the model's, else words) and the two
  *       tokenisers: the scoring unit's (user normalisation) and the model's;</li>
- *   <li>collects warnings in {@link #warnings()} (weights tuned at another unit or with another model, a vote
+ *   <li>collects warnings in {@link #warnings()} (a scoring unit taken from the weights file or the model rather
+ *       than given, weights tuned at another unit or with another model (named by size and SHA-256), a vote
  *       confidence the method ignores, a model in another unit, model-loading warnings) without printing.</li>
  * </ul>
  * It then offers: {@link #score} (unweighted terms, LM included, computed once per utterance), {@link #choose}
@@ -81,7 +82,7 @@ public final class RescoreSession {
    */
   public static RescoreSession open(RescoreConfig config) {
     SessionSetup s = new SessionSetup(config);
-    return new RescoreSession(s, s.weights, config.method());
+    return new RescoreSession(s, s.weights, s.method);
   }
 
   /**
@@ -113,6 +114,24 @@ public final class RescoreSession {
   public LogLinear weighting() { return rescorer.weighting(); }
   /** The underlying rescorer (what {@link #choose} calls). */
   public NbestRescorer rescorer() { return rescorer; }
+
+  /**
+   * Whether this session's weights and method use the model at all: λ or ω not 0, or λ′ not 0 with the lattice
+   * search. A model loaded for weights that are all 0 scores nothing (worth a warning where the user chose it).
+   */
+  public boolean usesModel() {
+    return SessionSetup.modelNeeded(weights(), method());
+  }
+
+  /** The scoring normalisation in one line ({@link steelyard.text.Normaliser#describe()}), as a run history records it. */
+  public String normalisationDescription() {
+    return setup.normalisation;
+  }
+
+  /** The model's tokenisation of raw text (how ln P is scored), or null without a model. */
+  public Tokenizer modelTokens() {
+    return setup.model == null ? null : setup.lmTokens;
+  }
 
   /** The model file's identity (hashes the file on the first call, then cached); null without a model file. */
   public ModelIdentity modelIdentity() {
@@ -200,6 +219,12 @@ public final class RescoreSession {
    * @param refs references file, or null
    */
   public ScoredSet loadAll(Path hyps, Path refs, int threads, LoadListener listener, BooleanSupplier cancelled) {
-    return SessionRuns.load(this, hyps, refs == null ? null : readReferences(refs), threads, listener, cancelled);
+    return loadWithReferences(hyps, refs == null ? null : readReferences(refs), threads, listener, cancelled);
+  }
+
+  /** As {@link #loadAll(Path, Path, int, LoadListener, BooleanSupplier)} with references already read (may be null). */
+  public ScoredSet loadWithReferences(Path hyps, Map<String, Reference> references, int threads, LoadListener listener,
+      BooleanSupplier cancelled) {
+    return SessionRuns.load(this, hyps, references, threads, listener, cancelled);
   }
 }

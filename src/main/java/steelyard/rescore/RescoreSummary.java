@@ -6,6 +6,7 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import it.unimi.dsi.fastutil.ints.IntArrayList;
 import java.util.ArrayList;
 import java.util.List;
+import steelyard.eval.Bootstrap;
 import steelyard.eval.EditCounts;
 import steelyard.eval.PairedComparison;
 import steelyard.io.JsonOutput;
@@ -23,7 +24,8 @@ import steelyard.io.JsonOutput;
  * method degenerates to each system's best total ({@link #warnings()}).
  *
  * <p>Per scored utterance it keeps three ints (errors of the choice and of rank 1, reference tokens) for the
- * bootstrap and the paired test: 12 bytes per utterance in three {@link IntArrayList}s.
+ * bootstrap and the paired test, 12 bytes per utterance in three {@link IntArrayList}s, and a reference to its id
+ * (shared with the imported rows) for the run history.
  */
 public final class RescoreSummary {
   /** Printed with every result: an automatic pick is a statistical choice. */
@@ -56,8 +58,11 @@ public final class RescoreSummary {
   private final IntArrayList errorsPerUtterance = new IntArrayList();
   private final IntArrayList firstErrorsPerUtterance = new IntArrayList();
   private final IntArrayList tokensPerUtterance = new IntArrayList();
+  private final List<String> scoredIds = new ArrayList<>();
+  private List<String> referenceOrder = List.of();
   private final List<String> missingHypotheses = new ArrayList<>();
   private final List<String> missingReferences = new ArrayList<>();
+  private final List<String> notes = new ArrayList<>();
 
   /** Adds one rescored utterance; {@code errors} is null when it has no reference (or none were given). */
   public void add(UtteranceResult r, UtteranceErrors errors) {
@@ -70,6 +75,7 @@ public final class RescoreSummary {
     if (state >= 0) posteriorUtterances++;
     if (state > 0) collapsed++;
     if (errors != null) {
+      scoredIds.add(r.uttId());
       addScored(errors.chosen(), errors.first(), errors.oracle());
       if (errors.latticeOracle() >= 0) {
         latticeOracle = true;
@@ -86,6 +92,7 @@ public final class RescoreSummary {
   /** Records a reference with no hypotheses: every reference token deleted, in every rate. */
   public void missingHypotheses(String uttId, EditCounts allDeleted) {
     missingHypotheses.add(uttId);
+    scoredIds.add(uttId);
     addScored(allDeleted, allDeleted, allDeleted);
     latticeOracleErrors += allDeleted.errors();
   }
@@ -101,6 +108,11 @@ public final class RescoreSummary {
     tokensPerUtterance.add(Math.toIntExact(c.referenceTokens()));
   }
 
+  /** Records the ids of the references file in file order (the order a run history stores utterances in). */
+  public void referenceOrder(java.util.Collection<String> ids) {
+    referenceOrder = List.copyOf(ids);
+  }
+
   public long utterances() { return utterances; }
   public long changed() { return changed; }
   public long newTranscripts() { return newTranscripts; }
@@ -111,6 +123,14 @@ public final class RescoreSummary {
   public long scored() { return scored; }
   /** Per scored utterance (input order, then missing hypotheses): errors of the choice. */
   public int[] errorsPerUtterance() { return errorsPerUtterance.toIntArray(); }
+  /** Ids of the scored utterances, in the order of {@link #errorsPerUtterance()}. */
+  public List<String> scoredIds() { return java.util.Collections.unmodifiableList(scoredIds); }
+  /** Ids of the utterances with hypotheses but no reference, in input order. */
+  public List<String> missingReferenceIds() { return java.util.Collections.unmodifiableList(missingReferences); }
+  /** Ids of the references without hypotheses, in reference-file order. */
+  public List<String> missingHypothesisIds() { return java.util.Collections.unmodifiableList(missingHypotheses); }
+  /** The references file's ids in file order, when the run was given them ({@link #referenceOrder}); else empty. */
+  public List<String> referenceOrder() { return referenceOrder; }
   /** Per scored utterance: reference tokens. */
   public int[] referenceTokensPerUtterance() { return tokensPerUtterance.toIntArray(); }
   /** Per scored utterance: errors of the recogniser's rank 1. */
@@ -125,12 +145,25 @@ public final class RescoreSummary {
     return posteriorUtterances > 0 && 2 * collapsed > posteriorUtterances;
   }
 
-  /** Warnings about the run itself (collapsed posteriors), in a fixed order. */
+  /** Records a warning about the run found after it (e.g. few utterances shared with the references). */
+  public void warn(String warning) {
+    notes.add(warning);
+  }
+
+  /** Warnings about the run itself: those recorded by {@link #warn}, in order, then collapsed posteriors. */
   public List<String> warnings() {
-    if (!posteriorsCollapsed()) return List.of();
-    return List.of("posteriors are nearly all 0 or 1 (in " + collapsed + " of " + posteriorUtterances
-        + " utterances one hypothesis holds more than " + COLLAPSED_MASS
-        + " of its system's mass); tune α (the posterior sharpness), or pass --posterior-sharpness");
+    List<String> out = new ArrayList<>(notes);
+    if (posteriorsCollapsed()) {
+      out.add("posteriors are nearly all 0 or 1 (in " + collapsed + " of " + posteriorUtterances
+          + " utterances one hypothesis holds more than " + COLLAPSED_MASS
+          + " of its system's mass); tune α (the posterior sharpness), or pass --posterior-sharpness");
+    }
+    return List.copyOf(out);
+  }
+
+  /** The 95 % bootstrap interval of the chosen error rate over the scored utterances ({@link Bootstrap#corpusRate}). */
+  public Bootstrap.Interval interval(int resamples, long seed, int threads) {
+    return Bootstrap.corpusRate(errorsPerUtterance(), referenceTokensPerUtterance(), resamples, seed, threads);
   }
 
   /**

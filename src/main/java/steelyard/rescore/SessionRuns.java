@@ -21,6 +21,7 @@ final class SessionRuns {
   static RescoreSummary stream(RescoreSession session, Path hyps, Map<String, Reference> references, int threads,
       RescoreSession.OutcomeSink sink) {
     RescoreSummary summary = new RescoreSummary();
+    if (references != null) summary.referenceOrder(references.keySet());
     Set<String> seen = new HashSet<>();
     try (HypothesesReader reader = session.open(hyps)) {
       OrderedBatches.run(reader, u -> {

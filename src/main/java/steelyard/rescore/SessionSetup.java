@@ -26,10 +26,13 @@ final class SessionSetup {
   final List<String> featureNames;
   final WeightsSpec fileSpec;
   final RescoreWeights weights;
+  /** The configured method, else the weights file's, else N-best. */
+  final RescoreMethod method;
   final LanguageModel model;
   final Unit unit;
   final Tokenizer unitTokens;
   final Tokenizer lmTokens;
+  final String normalisation;
   final HypothesisScorer scorer;
   final ImportOptions importOptions;
   final List<String> warnings;
@@ -45,16 +48,25 @@ final class SessionSetup {
     checkOverrideNames(c.overrides(), featureNames);
     weights = fileSpec.overlay(c.overrides()).resolve(featureNames);
     List<String> warn = new ArrayList<>();
-    model = loadModel(c, modelNeeded(weights, c.method()), warn);
-    if (weights.voteConfidence() != null && !c.method().usesNetwork())
+    method = c.method() != null ? c.method() : fileSpec.method != null ? fileSpec.method : RescoreMethod.NBEST;
+    if (c.method() != null && fileSpec.method != null && c.method() != fileSpec.method)
+      warn.add("the weights in " + c.weightsFile() + " were tuned for method " + fileSpec.method.label() + "; this run uses " + c.method().label());
+    model = loadModel(c, modelNeeded(weights, method), warn);
+    if (weights.voteConfidence() != null && !method.usesNetwork())
       warn.add("--vote-confidence " + weights.voteConfidence() + " weighs only the consensus and lattice methods, not "
-          + c.method().label());
+          + method.label());
     unit = c.unit() != null ? c.unit() : fileSpec.unit != null ? fileSpec.unit : model != null ? model.unit() : Unit.WORD;
+    if (c.unit() == null && unit != Unit.WORD)
+      warn.add("the scoring unit is " + unit.label() + ", taken from " + (fileSpec.unit != null ? "the weights in " + c.weightsFile()
+          : c.modelPath() != null ? "the model " + c.modelPath() : "the model") + " because --unit was not given: lengths, MBR and error rates ("
+          + (unit == Unit.CHAR ? "CER" : "WER") + ") count " + (unit == Unit.CHAR ? "characters" : "words"));
     if (fileSpec.unit != null && fileSpec.unit != unit)
       warn.add("the weights in " + c.weightsFile() + " were tuned at unit " + fileSpec.unit.label() + "; this run uses " + unit.label());
     if (fileSpec.model != null && c.modelPath() != null && model != null && !fileSpec.model.sameModel(modelIdentity()))
-      warn.add("the weights in " + c.weightsFile() + " were tuned with model " + fileSpec.model.file() + ", not " + c.modelPath());
+      warn.add("the weights in " + c.weightsFile() + " were tuned with model " + fileSpec.model.describe() + ", not " + c.modelPath()
+          + " " + modelIdentity().describe());
     Normaliser scoring = Normaliser.create(c.normalisation());
+    normalisation = scoring.describe();
     Unit u = unit;
     unitTokens = raw -> scoring.tokens(raw, u);
     lmTokens = lmTokens(model, unit, c, unitTokens);

@@ -11,15 +11,13 @@ import java.io.Reader;
 import java.io.StringWriter;
 import java.io.UncheckedIOException;
 import java.io.Writer;
-import java.nio.charset.CharacterCodingException;
-import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.Collection;
 import java.util.Locale;
 import java.util.Map;
 import steelyard.io.AtomicOutput;
 import steelyard.io.InputException;
+import steelyard.io.InputFiles;
 import steelyard.io.JsonOutput;
 import steelyard.text.Unit;
 
@@ -27,8 +25,11 @@ import steelyard.text.Unit;
  * Reads and writes the weights file (JSON, schema {@value #FORMAT} version {@value #VERSION}, documented in
  * the README). Every problem is an {@link InputException} naming {@code file:line:column} from the JSON
  * parser's location: text that is not JSON, an unknown key or weight name, a value of the wrong type.
- * Version 1 files are still read; they differ only in naming the posterior sharpness
- * {@value #POSTERIOR_SHARPNESS_V1}. Files are always written as version {@value #VERSION}.
+ * Versions 1 and 2 are still read: version 1 differs only in naming the posterior sharpness
+ * {@value #POSTERIOR_SHARPNESS_V1}; version 3 adds the optional {@code method} and {@code tuning} keys (the
+ * method the weights were tuned for and a {@link TuningRecord}). A file is written as the lowest version that
+ * holds its content: {@value #PLAIN_VERSION} unless it records a method or tuning, so weights saved without
+ * tuning stay readable by programs that know version 2 only.
  *
  * <pre>{@code
  * {"format": "steelyard-weights", "version": 2, "unit": "word", "log_base": "e",
@@ -42,7 +43,10 @@ import steelyard.text.Unit;
  */
 public final class WeightsFile {
   public static final String FORMAT = "steelyard-weights";
-  public static final int VERSION = 2;
+  /** The newest version, read and written. */
+  public static final int VERSION = 3;
+  /** The version written when a file records no method and no tuning. */
+  public static final int PLAIN_VERSION = 2;
   /** The oldest version still read. */
   public static final int OLDEST_VERSION = 1;
   /** Key of the posterior sharpness α in {@code methods.nbest}. */
@@ -53,6 +57,7 @@ public final class WeightsFile {
   private static final JsonFactory JSON = JsonFactory.builder()
       .disable(JsonFactory.Feature.INTERN_FIELD_NAMES)
       .build()
+      .enable(JsonParser.Feature.STRICT_DUPLICATE_DETECTION)
       .disable(JsonGenerator.Feature.AUTO_CLOSE_TARGET);
 
   private WeightsFile() {}
@@ -63,25 +68,24 @@ public final class WeightsFile {
    * features from the file).
    */
   public static WeightsSpec read(Path file, Collection<String> knownFeatures) {
-    try (Reader in = Files.newBufferedReader(file)) {
+    // Read like every other input: strict UTF-8 with its line and column, a leading BOM dropped, .gz, '-'.
+    try (Reader in = InputFiles.open(file)) {
       return read(file, in, knownFeatures);
-    } catch (NoSuchFileException e) {
-      throw InputException.inFile(file, "file not found", "an existing weights file");
-    } catch (CharacterCodingException e) {
-      throw InputException.inFile(file, "not valid UTF-8", "a UTF-8 JSON weights file").withCause(e);
     } catch (IOException e) {
       throw InputException.inFile(file, "cannot read (" + e.getMessage() + ")", "a readable weights file").withCause(e);
     }
   }
 
-  /** Reads weights from {@code in}; {@code file} names it in messages. */
+  /**
+   * Reads weights from {@code in}; {@code file} names it in messages. A key given twice in one object and a
+   * string holding a lone UTF-16 surrogate (from a <code>&#92;uD800</code> escape) are refused; messages about
+   * malformed JSON are in the project's words, without the parser's internals.
+   */
   public static WeightsSpec read(Path file, Reader in, Collection<String> knownFeatures) throws IOException {
     try (JsonParser p = JSON.createParser(in)) {
       return new WeightsParser(file, p, knownFeatures).document();
     } catch (JsonProcessingException e) {
-      JsonLocation loc = e.getLocation();
-      String msg = e.getOriginalMessage().split("\n", 2)[0];
-      throw at(file, loc, "not valid JSON (" + msg + ")", "a JSON weights file").withCause(e);
+      throw at(file, e.getLocation(), JsonProblems.describe(e), JsonProblems.expected(e)).withCause(e);
     }
   }
 
@@ -112,9 +116,10 @@ public final class WeightsFile {
       g.setPrettyPrinter(JsonOutput.prettyPrinter());
       g.writeStartObject();
       g.writeStringField("format", FORMAT);
-      g.writeNumberField("version", VERSION);
+      g.writeNumberField("version", s.method != null || s.tuning != null ? VERSION : PLAIN_VERSION);
       if (s.unit != null) g.writeStringField("unit", s.unit.name().toLowerCase(Locale.ROOT));
       g.writeStringField("log_base", "e");
+      if (s.method != null) g.writeStringField("method", s.method.label());
       g.writeFieldName("model");
       if (s.model == null) {
         g.writeNull();
@@ -147,6 +152,7 @@ public final class WeightsFile {
       else g.writeStringField("vote_confidence", s.voteConfidence);
       g.writeEndObject();
       g.writeEndObject();
+      if (s.tuning != null) TuningJson.write(g, s.tuning);
       g.writeEndObject();
     }
     out.write('\n');
@@ -169,6 +175,12 @@ public final class WeightsFile {
   static InputException at(Path file, JsonLocation loc, String problem, String expected) {
     if (loc == null || loc.getLineNr() < 1) return InputException.inFile(file, problem, expected);
     return InputException.at(file, loc.getLineNr(), Math.max(0, loc.getColumnNr()), problem, expected);
+  }
+
+  /** The method of a label ({@code nbest}, {@code mbr}, {@code consensus}, {@code lattice}); null when unknown. */
+  static RescoreMethod parseMethod(String s) {
+    for (RescoreMethod m : RescoreMethod.values()) if (m.label().equals(s)) return m;
+    return null;
   }
 
   /** Unit names accepted in the file. */

@@ -5,11 +5,15 @@ import com.fasterxml.jackson.core.JsonParser;
 import com.fasterxml.jackson.core.JsonToken;
 import java.io.IOException;
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.Collection;
+import java.util.Locale;
+import java.util.List;
 import java.util.Map;
 import java.util.Set;
 import java.util.TreeSet;
 import steelyard.io.InputException;
+import steelyard.io.Messages;
 
 /**
  * Streaming reader of the weights-file schema (see {@link WeightsFile}); streaming rather than a tree so that
@@ -24,6 +28,9 @@ final class WeightsParser {
   private int version;
   private String sharpnessKey;
   private JsonLocation sharpnessAt;
+  /** The first version-3 key met ({@code method} or {@code tuning}) and where; checked against the version at the end. */
+  private String newerKey;
+  private JsonLocation newerAt;
 
   WeightsParser(Path file, JsonParser p, Collection<String> knownFeatures) {
     this.file = file;
@@ -49,7 +56,8 @@ final class WeightsParser {
         case "version":
           int v = integer(0);
           if (v < WeightsFile.OLDEST_VERSION || v > WeightsFile.VERSION)
-            throw fail("unsupported version " + v, "version " + WeightsFile.VERSION + " (version " + WeightsFile.OLDEST_VERSION + " is still read)");
+            throw fail("unsupported version " + v, "version " + WeightsFile.VERSION + " (versions " + WeightsFile.OLDEST_VERSION + " and "
+                + WeightsFile.PLAIN_VERSION + " are still read)");
           version = v;
           sawVersion = true;
           break;
@@ -68,15 +76,119 @@ final class WeightsParser {
         case "methods":
           methods();
           break;
+        case "method":
+          sawNewer(key);
+          String m = string();
+          spec.method = WeightsFile.parseMethod(m);
+          if (spec.method == null) throw fail("unknown method '" + m + "'", "\"nbest\", \"mbr\", \"consensus\" or \"lattice\"");
+          break;
+        case TuningJson.KEY:
+          sawNewer(key);
+          spec.tuning = tuning();
+          break;
         default:
-          throw unknownKey(key, "format, version, unit, log_base, model, methods");
+          throw unknownKey(key, "format, version, unit, log_base, method, model, methods, tuning");
       }
     }
     if (p.nextToken() != null) throw fail("text after the closing brace", "one JSON object");
     if (!sawFormat || !sawVersion)
       throw InputException.inFile(file, "missing \"" + (sawFormat ? "version" : "format") + "\"", "\"format\": \"" + WeightsFile.FORMAT + "\", \"version\": " + WeightsFile.VERSION);
     checkSharpnessSpelling();
+    checkNewerKeys();
     return spec;
+  }
+
+  private void sawNewer(String key) {
+    if (newerKey != null) return;
+    newerKey = key;
+    newerAt = p.currentTokenLocation();
+  }
+
+  /** {@code method} and {@code tuning} came with version 3. */
+  private void checkNewerKeys() {
+    if (newerKey == null || version >= 3) return;
+    throw WeightsFile.at(file, newerAt, "'" + newerKey + "' in a version " + version + " file",
+        "\"version\": " + WeightsFile.VERSION + " (the version that added it)");
+  }
+
+  /** The {@code dev} object of {@code tuning}; every part is required. */
+  private record Dev(TuningRecord.DataFile hypotheses, TuningRecord.DataFile references, Integer utterances, Long tokens) {
+    boolean complete() {
+      return hypotheses != null && references != null && utterances != null && tokens != null;
+    }
+  }
+
+  private TuningRecord tuning() throws IOException {
+    expect(JsonToken.START_OBJECT, "an object");
+    Dev dev = null;
+    List<String> changed = List.of();
+    double devRate = Double.NaN;
+    double cvRate = Double.NaN;
+    int folds = 0;
+    long seed = 0;
+    while (nextField()) {
+      String key = p.currentName();
+      p.nextToken();
+      switch (key) {
+        case "dev": dev = dev(); break;
+        case "changed": changed = names(); break;
+        case "dev_error_rate": devRate = rateOrNull(); break;
+        case "cv_error_rate": cvRate = rateOrNull(); break;
+        case "folds": folds = integer(0); break;
+        case "seed": seed = longValue(); break;
+        default: throw unknownKey(key, "dev, changed, dev_error_rate, cv_error_rate, folds, seed");
+      }
+    }
+    if (dev == null) throw fail("tuning needs its dev data", "\"dev\": {\"hypotheses\": …, \"references\": …, \"utterances\": N, \"reference_tokens\": N}");
+    return new TuningRecord(dev.hypotheses(), dev.references(), dev.utterances(), dev.tokens(), changed, devRate, cvRate, folds, seed);
+  }
+
+  private Dev dev() throws IOException {
+    expect(JsonToken.START_OBJECT, "an object");
+    Dev d = new Dev(null, null, null, null);
+    while (nextField()) {
+      String key = p.currentName();
+      p.nextToken();
+      switch (key) {
+        case "hypotheses": d = new Dev(dataFile(), d.references(), d.utterances(), d.tokens()); break;
+        case "references": d = new Dev(d.hypotheses(), dataFile(), d.utterances(), d.tokens()); break;
+        case "utterances": d = new Dev(d.hypotheses(), d.references(), integer(0), d.tokens()); break;
+        case "reference_tokens": d = new Dev(d.hypotheses(), d.references(), d.utterances(), longValue()); break;
+        default: throw unknownKey(key, "hypotheses, references, utterances, reference_tokens");
+      }
+    }
+    if (!d.complete()) throw fail("dev needs hypotheses, references, utterances and reference_tokens", "all four keys");
+    return d;
+  }
+
+  private TuningRecord.DataFile dataFile() throws IOException {
+    expect(JsonToken.START_OBJECT, "an object");
+    String name = null;
+    Long bytes = null;
+    String sha = null;
+    while (nextField()) {
+      String key = p.currentName();
+      p.nextToken();
+      switch (key) {
+        case "file": name = string(); break;
+        case "bytes": bytes = longValue(); break;
+        case "sha256": sha = string(); break;
+        default: throw unknownKey(key, "file, bytes, sha256");
+      }
+    }
+    if (name == null || bytes == null || sha == null) throw fail("a data file needs file, bytes and sha256", "{\"file\": …, \"bytes\": N, \"sha256\": \"…\"}");
+    return new TuningRecord.DataFile(name, bytes, sha);
+  }
+
+  private List<String> names() throws IOException {
+    expect(JsonToken.START_ARRAY, "an array of weight names");
+    List<String> out = new ArrayList<>();
+    while (p.nextToken() != JsonToken.END_ARRAY) out.add(string());
+    return out;
+  }
+
+  private double rateOrNull() throws IOException {
+    return p.currentToken() == JsonToken.VALUE_NULL ? Double.NaN : number();
   }
 
   private void model() throws IOException {
@@ -143,7 +255,7 @@ final class WeightsParser {
     String expected = version == 1 ? WeightsFile.POSTERIOR_SHARPNESS_V1 : WeightsFile.POSTERIOR_SHARPNESS;
     if (sharpnessKey.equals(expected)) return;
     throw WeightsFile.at(file, sharpnessAt, "'" + sharpnessKey + "' in a version " + version + " file", version == 1
-        ? "\"" + expected + "\" in version 1, or \"version\": " + WeightsFile.VERSION + " with \"" + WeightsFile.POSTERIOR_SHARPNESS + "\""
+        ? "\"" + expected + "\" in version 1, or \"version\": " + WeightsFile.PLAIN_VERSION + " with \"" + WeightsFile.POSTERIOR_SHARPNESS + "\""
         : "\"" + expected + "\" (\"" + sharpnessKey + "\" is the version 1 spelling)");
   }
 
@@ -206,7 +318,17 @@ final class WeightsParser {
     JsonToken t = p.nextToken();
     if (t == JsonToken.END_OBJECT) return false;
     if (t != JsonToken.FIELD_NAME) throw fail("unexpected " + t, "a field name");
+    validUnicode(p.currentName(), "key");
     return true;
+  }
+
+  /** A lone surrogate (a <code>&#92;uD800</code> escape) is no character: no file, report or message could hold it. */
+  private void validUnicode(String s, String what) {
+    int i = Messages.loneSurrogate(s);
+    if (i >= 0) {
+      throw fail(what + " '" + Messages.shown(s, 40) + "' contains a lone UTF-16 surrogate (\\u"
+          + String.format(Locale.ROOT, "%04X", (int) s.charAt(i)) + ") that is not a character", "text of valid Unicode characters");
+    }
   }
 
   private void expect(JsonToken type, String what) {
@@ -215,6 +337,7 @@ final class WeightsParser {
 
   private String string() throws IOException {
     if (p.currentToken() != JsonToken.VALUE_STRING) throw fail("'" + p.currentName() + "' is " + describe(), "a string");
+    validUnicode(p.getText(), "value");
     return p.getText();
   }
 

@@ -32,6 +32,10 @@ public final class WeightsSpec {
   public Unit unit;
   /** The model the weights were tuned with; null when none or not recorded. */
   public ModelIdentity model;
+  /** The method the weights were tuned for (version 3); null when not recorded. */
+  public RescoreMethod method;
+  /** How tuning made the weights (version 3); null when they were not tuned or not recorded. */
+  public TuningRecord tuning;
 
   /** A new spec: this one with every value {@code top} gives replacing ours (map entries one by one). */
   public WeightsSpec overlay(WeightsSpec top) {
@@ -52,6 +56,8 @@ public final class WeightsSpec {
     r.voteConfidence = pick(top.voteConfidence, voteConfidence);
     r.unit = pick(top.unit, unit);
     r.model = pick(top.model, model);
+    r.method = pick(top.method, method);
+    r.tuning = pick(top.tuning, tuning);
     return r;
   }
 

@@ -1,9 +1,14 @@
 package steelyard.tune;
 
+import java.util.ArrayList;
 import java.util.List;
 import java.util.Objects;
+import steelyard.io.InputException;
 import steelyard.lm.LanguageModel;
+import steelyard.rescore.RescoreSession;
 import steelyard.rescore.RescoreWeights;
+import steelyard.rescore.ScoredSet;
+import steelyard.rescore.ScoredUtterance;
 
 /**
  * The dev data and starting point of a tuning run, all in memory.
@@ -31,6 +36,35 @@ public record TuneInput(
       if (u.scores().featureCount() != featureNames.size())
         throw new IllegalArgumentException(u.scores().uttId() + " has " + u.scores().featureCount() + " features, expected "
             + featureNames.size());
+  }
+
+  /**
+   * The utterances of {@code set} that have a reference, as the rescoring service scored them, starting from
+   * {@code start}; every reported error comes from {@code session}'s own choice ({@link RescoreSession#withWeights}
+   * then {@link RescoreSession#choose}), so {@code rescore --refs} with the tuned weights counts exactly the errors
+   * the tuner reports. The one way the {@code tune} command, the demo, the report's charts and the window make a
+   * tuning input from loaded data.
+   *
+   * <p>Builds each utterance's token ids first, under the utterance's lock, so that choices made on other threads
+   * meanwhile only read them. Cost: one pass over the hypotheses' tokens.
+   *
+   * @throws InputException when no utterance of {@code set} has a reference
+   */
+  public static TuneInput of(ScoredSet set, RescoreSession session, RescoreWeights start) {
+    List<DevUtterance> dev = new ArrayList<>();
+    for (ScoredSet.Entry e : set.utterances()) {
+      if (e.reference() == null) continue;
+      ScoredUtterance s = e.scores();
+      synchronized (s) {
+        s.tokenIds();
+      }
+      dev.add(new DevUtterance(s, e.reference(), e.group()));
+    }
+    if (dev.isEmpty())
+      throw InputException.option("--refs", "no reference has the utt_id of an utterance with hypotheses",
+          "references for the utterances of the hypotheses file");
+    ChooserFactory chooser = (w, m) -> session.withWeights(w, m)::choose;
+    return new TuneInput(dev, set.featureNames(), session.model(), start, chooser);
   }
 
   /** With the standard chooser ({@link ChooserFactory#standard}). */

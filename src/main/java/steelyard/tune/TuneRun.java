@@ -120,7 +120,8 @@ final class TuneRun {
       int c = nbest.dims[i];
       intervals.put(nbest.names.get(c), new WeightInterval(iv[i][0], iv[i][1], vector[c], true));
     }
-    if (kept) keptWarning(RescoreMethod.NBEST);
+    // Only a reported N-best method with weights to move can have kept its starting weights in the user's eyes.
+    if (kept && settings.methods().contains(RescoreMethod.NBEST) && nbest.dims.length > 0) keptWarning(RescoreMethod.NBEST);
     RescoreWeights weights = kept ? start : tuned;
     MethodFigures fig = figures(RescoreMethod.NBEST, weights, errors, cv, sum(startErrors), kept, intervals, o.passes());
     return new NbestPart(weights, vector, fig, errors);

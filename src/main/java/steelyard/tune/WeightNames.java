@@ -1,5 +1,7 @@
 package steelyard.tune;
 
+import steelyard.rescore.RescoreWeights;
+
 /**
  * Names of the tunable weights, as a {@code --tune} list and the result spell them, and their default ranges.
  * A feature weight is named by its feature column; the other names are fixed (a feature column cannot use them).
@@ -31,6 +33,22 @@ public final class WeightNames {
   /** The name of {@code system}'s mixing weight. */
   public static String system(String system) {
     return SYSTEM_PREFIX + system;
+  }
+
+  /**
+   * The value of weight {@code name} in {@code w}: a feature not listed weighs 1 and a system not listed 1, as
+   * rescoring counts them.
+   */
+  public static double valueOf(RescoreWeights w, String name) {
+    return switch (name) {
+      case LM -> w.lmWeight();
+      case OOV -> w.oovWeight();
+      case LENGTH -> w.lengthWeight();
+      case POSTERIOR_SCALE -> w.posteriorScale();
+      case LATTICE_LM -> w.latticeLmWeight();
+      case LATTICE_LENGTH -> w.latticeLengthWeight();
+      default -> name.startsWith(SYSTEM_PREFIX) ? w.systemWeight(name.substring(SYSTEM_PREFIX.length())) : w.features().getOrDefault(name, 1.0);
+    };
   }
 
   /** Whether {@code name} is one of the fixed names or a system weight (not a feature). */

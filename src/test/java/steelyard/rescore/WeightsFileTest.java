@@ -151,11 +151,74 @@ class WeightsFileTest {
     }
 
     @ParameterizedTest(name = "[{index}] version {0}")
-    @ValueSource(ints = {0, 3})
+    @ValueSource(ints = {0, 4})
     void otherVersionsAreRefused(int version) {
       assertThatThrownBy(() -> read("{\"format\":\"steelyard-weights\",\"version\":" + version + "}"))
           .isInstanceOf(InputException.class)
-          .hasMessageContaining("unsupported version " + version + "; expected version 2 (version 1 is still read)");
+          .hasMessageContaining("unsupported version " + version + "; expected version 3 (versions 1 and 2 are still read)");
+    }
+  }
+
+  @Nested
+  class TunedWeights {
+    private WeightsSpec tuned() {
+      WeightsSpec s = full();
+      s.method = RescoreMethod.LATTICE;
+      s.tuning = new TuningRecord(new TuningRecord.DataFile("dev.nbest.csv", 4096, "cd".repeat(32)),
+          new TuningRecord.DataFile("dev.refs.csv", 512, "ef".repeat(32)), 300, 3136, List.of("lm_weight", "lattice_lm_weight"),
+          0.0886479591, Double.NaN, 0, 7);
+      return s;
+    }
+
+    @Test
+    void aTunedFileRoundTripsTheMethodAndWhereTheWeightsCameFrom() throws IOException {
+      String json = WeightsFile.toJson(tuned());
+      WeightsSpec back = read(json, "acoustic", "lm");
+      assertThat(WeightsFile.toJson(back)).isEqualTo(json);
+      assertThat(back.method).isEqualTo(RescoreMethod.LATTICE);
+      assertThat(back.tuning.hypotheses().sameData(tuned().tuning.hypotheses())).isTrue();
+      assertThat(back.tuning.references()).isEqualTo(tuned().tuning.references());
+      assertThat(back.tuning.utterances()).isEqualTo(300);
+      assertThat(back.tuning.referenceTokens()).isEqualTo(3136);
+      assertThat(back.tuning.changed()).containsExactly("lm_weight", "lattice_lm_weight");
+      assertThat(back.tuning.devErrorRate()).as("six decimals, as every JSON rate").isEqualTo(0.088648);
+      assertThat(back.tuning.cvErrorRate()).isNaN();
+      assertThat(back.resolve(List.of("acoustic", "lm"))).isEqualTo(full().resolve(List.of("acoustic", "lm")));
+    }
+
+    @Test
+    void aTunedFileIsVersionThreeAndAPlainOneStaysVersionTwo() {
+      assertThat(WeightsFile.toJson(tuned())).contains("\"version\" : 3", "\"method\" : \"lattice\"", "\"tuning\"");
+      assertThat(WeightsFile.toJson(full())).contains("\"version\" : 2").doesNotContain("\"method\"", "\"tuning\"");
+    }
+
+    @Test
+    void aVersionTwoFileAsRescoreSavesItIsStillRead() throws IOException {
+      WeightsSpec s = read(WeightsFile.toJson(full()), "acoustic", "lm");
+      assertThat(s.method).isNull();
+      assertThat(s.tuning).isNull();
+      assertThat(s.lmWeight).isEqualTo(9.5);
+    }
+
+    // column counted by hand: "method" starts at column 2 of line 2
+    @Test
+    void theVersionThreeKeysAreRefusedInAnOlderFile() {
+      String json = "{\"format\":\"steelyard-weights\",\"version\":2,\n\"method\":\"nbest\"}";
+      assertThatThrownBy(() -> read(json)).isInstanceOf(InputException.class)
+          .hasMessageStartingWith("dev.weights.json:2:")
+          .hasMessageContaining("'method' in a version 2 file; expected \"version\": 3");
+    }
+
+    @Test
+    void anUnknownMethodIsRefused() {
+      String json = "{\"format\":\"steelyard-weights\",\"version\":3,\n\"method\":\"beam\"}";
+      assertThatThrownBy(() -> read(json)).isInstanceOf(InputException.class).hasMessageContaining("unknown method 'beam'");
+    }
+
+    @Test
+    void tuningWithoutItsDevDataIsRefused() {
+      String json = "{\"format\":\"steelyard-weights\",\"version\":3,\n\"tuning\":{\"folds\":5}}";
+      assertThatThrownBy(() -> read(json)).isInstanceOf(InputException.class).hasMessageContaining("tuning needs its dev data");
     }
   }
 }

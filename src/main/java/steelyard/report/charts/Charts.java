@@ -237,7 +237,8 @@ public final class Charts {
         hi = Math.max(hi, d);
       }
     }
-    return lo <= hi ? new double[] {lo, hi} : new double[] {0.0, 1.0};
+    if (lo == hi) return new double[] {lo - 0.5, hi + 0.5}; // a flat surface: the scale legend needs a positive span
+    return lo < hi ? new double[] {lo, hi} : new double[] {0.0, 1.0};
   }
 
   // Axis exactly over the blocks, widened only when the chosen point lies outside them.

@@ -111,6 +111,16 @@ class ChartsTest {
     }
 
     @Test
+    void aFlatSurfaceDrawsWithAScaleAroundItsOneValue() {
+      double[][] e = {{16.5, 16.5}, {16.5, 16.5}};
+      JFreeChart chart = Charts.errorSurface("λ", "μ", new double[] {0, 1}, new double[] {-1, 1}, e, 0, 0);
+      XYBlockRenderer r = (XYBlockRenderer) chart.getXYPlot().getRenderer();
+      assertThat(r.getPaintScale().getLowerBound()).isLessThan(16.5);
+      assertThat(r.getPaintScale().getUpperBound()).isGreaterThan(16.5);
+      assertThat(ChartExport.svg(chart, 300, 200)).contains("<svg");
+    }
+
+    @Test
     void marksTheChosenPointOnBothAxesAndWithALabel() {
       XYPlot plot = ChartSamples.surface().getXYPlot();
       assertThat(values(plot.getDomainMarkers(Layer.FOREGROUND))).containsExactly(14.0);
