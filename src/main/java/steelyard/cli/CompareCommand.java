@@ -15,16 +15,18 @@ import steelyard.eval.MissingHypothesisPolicy;
 import steelyard.eval.PairedComparison;
 import steelyard.eval.Pick;
 import steelyard.eval.SystemFilter;
+import steelyard.eval.UtteranceOverlap;
 import steelyard.history.InputFile;
 import steelyard.history.RunRecord;
 import steelyard.io.HypothesesReader;
 import steelyard.io.ImportOptions;
 import steelyard.io.InputException;
+import steelyard.io.InputFiles;
+import steelyard.io.OutputSet;
 import steelyard.io.Reference;
 import steelyard.io.ReferencesReader;
 import steelyard.report.CompareReport;
 import steelyard.io.JsonOutput;
-import steelyard.report.OutputPaths;
 import steelyard.text.Normaliser;
 import steelyard.text.Unit;
 
@@ -91,7 +93,8 @@ public final class CompareCommand implements Callable<Integer> {
     List<Path> inputs = new ArrayList<>(hyps);
     inputs.add(refs);
     inputs.add(normalisation.rules);
-    OutputPaths.refuseClashes(outputs, inputs);
+    OutputSet outputSet = OutputSet.open(outputs, inputs);
+    if (systems != null) InputFiles.requireRereadable(hyps.get(0), "--systems scores it once per system");
 
     List<String> warnings = new ArrayList<>();
     ImportOptions options = imports.importOptions(spec.commandLine().getErr(), warnings::add);
@@ -104,6 +107,9 @@ public final class CompareCommand implements Callable<Integer> {
     long[] hypRows = new long[2];
     CorpusScore a = scoreFile(scorer, refMap, fileA, systems == null ? null : systems.get(0), options, hypRows, 0);
     CorpusScore b = scoreFile(scorer, refMap, fileB, systems == null ? null : systems.get(1), options, hypRows, 1);
+    List<String> refIds = new ArrayList<>(refMap.keySet());
+    ScoreCommand.warnAbout(UtteranceOverlap.check(label(fileA, 0), refs, refIds, a.missingHypotheses(), a.missingReferences()), warnings, spec.commandLine().getErr());
+    ScoreCommand.warnAbout(UtteranceOverlap.check(label(fileB, 1), refs, refIds, b.missingHypotheses(), b.missingReferences()), warnings, spec.commandLine().getErr());
     PairedComparison comparison = PairedComparison.of(a, b, resamples, run.seed, run.effectiveThreads());
     CompareReport.CompareRun report = new CompareReport.CompareRun(refs.toString(), unit, normaliser.describe(),
         new CompareReport.SystemRun(display.get(0), label(fileA, 0), a),
@@ -111,6 +117,7 @@ public final class CompareCommand implements Callable<Integer> {
         comparison, run.seed, imports.skipped, warnings);
 
     json.write(CompareReport.json(report), spec.commandLine().getOut());
+    outputSet.commit();
     ScoreCommand.printReport(spec, json.file, CompareReport.text(report));
     history.record(recorded(display.get(0), fileA, hypRows[0], a, warnings, normaliser, refMap.size()),
         recorded(display.get(1), fileB, hypRows[1], b, warnings, normaliser, refMap.size()));
@@ -142,7 +149,9 @@ public final class CompareCommand implements Callable<Integer> {
     try (HypothesesReader reader = HypothesesReader.open(file, options)) {
       if (system != null && !reader.hasSystemColumn())
         throw InputException.inFile(file, "--systems needs a 'system' column, which this file does not have", "a column named system");
-      CorpusScore score = scorer.score(refMap, system == null ? reader : new SystemFilter(reader, system));
+      SystemFilter filter = system == null ? null : new SystemFilter(reader, system);
+      CorpusScore score = scorer.score(refMap, filter == null ? reader : filter);
+      if (filter != null) filter.requireSeen("--systems", file);
       rowsRead[which] = reader.rowsRead();
       return score;
     }

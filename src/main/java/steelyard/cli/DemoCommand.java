@@ -2,7 +2,6 @@ package steelyard.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
-import java.net.URISyntaxException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
@@ -14,7 +13,9 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import steelyard.demo.DemoRun;
 import steelyard.io.ImportOptions;
+import steelyard.demo.DemoFiles;
 import steelyard.io.InputException;
+import steelyard.io.OutputSet;
 
 /**
  * Runs the main job on the bundled demo data ({@link DemoRun}): the invented produce-warehouse cooperative's voice
@@ -42,32 +43,23 @@ public final class DemoCommand implements Callable<Integer> {
   public Integer call() {
     PrintWriter err = spec.commandLine().getErr();
     ImportOptions imports = new ImportOptions(List.of(), null, 0, w -> RescoreSupport.warn(err, w), s -> { });
-    List<DemoRun.Part> parts = DemoRun.bundled(dataDir != null ? dataDir : projectRoot(), "--data-dir", imports, run.effectiveThreads(), run.seed);
+    List<DemoRun.Part> parts = DemoRun.bundled(dataDir != null ? dataDir : DemoFiles.root(), "--data-dir", imports, run.effectiveThreads(), run.seed);
     try {
       Files.createDirectories(outDir);
     } catch (IOException e) {
       throw InputException.option("--out-dir", "cannot create " + outDir + " (" + e.getMessage() + ")", "a writable folder");
     }
     DemoRun.Result r;
-    try (TuneProgressBar bar = new TuneProgressBar(err, ConsoleProgress.wanted(false), System::nanoTime)) {
+    // All outputs of both parts and the report are one set: a failure leaves the output folder as it was.
+    try (OutputSet outputs = OutputSet.open(DemoRun.outputs(parts, outDir), List.of());
+        TuneProgressBar bar = new TuneProgressBar(err, ConsoleProgress.wanted(false), System::nanoTime)) {
       r = DemoRun.run(parts, outDir, run.effectiveThreads(), run.seed, bar, () -> false, spec.commandLine().getOut());
+      outputs.commit();
     }
     r.runs().forEach(p -> p.warnings().forEach(w -> RescoreSupport.warn(err, w)));
     PrintWriter out = spec.commandLine().getOut();
     out.print(DemoRun.summary(r));
     out.flush();
     return Main.OK;
-  }
-
-  /** The folder above {@code target/} when running from the built jar, else the current folder. */
-  private static Path projectRoot() {
-    try {
-      Path jar = Path.of(DemoCommand.class.getProtectionDomain().getCodeSource().getLocation().toURI());
-      Path candidate = jar.getParent() == null ? null : jar.getParent().getParent();
-      if (candidate != null && Files.isDirectory(candidate.resolve("sample-hypotheses"))) return candidate;
-    } catch (URISyntaxException | SecurityException | NullPointerException e) {
-      // fall through to the current folder
-    }
-    return Path.of("").toAbsolutePath();
   }
 }

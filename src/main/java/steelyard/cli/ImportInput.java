@@ -28,7 +28,7 @@ public final class ImportInput {
   public final List<SkippedRow> skipped = new ArrayList<>();
 
   public List<FeatureSpec> featureSpecs() {
-    return FeatureSpec.parseList(features);
+    return FeatureSpec.parseOption(features);
   }
 
   /** Import options; warnings and skipped rows go to {@code err}, skipped rows are also collected. */

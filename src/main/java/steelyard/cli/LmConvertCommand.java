@@ -6,7 +6,8 @@ import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
-import steelyard.io.AtomicOutput;
+import steelyard.io.OutputSet;
+import steelyard.io.OutputTarget;
 import steelyard.lm.BackoffModel;
 import steelyard.lm.ModelFiles;
 
@@ -23,15 +24,18 @@ public final class LmConvertCommand implements Callable<Integer> {
   @Override
   public Integer call() {
     input.require();
-    ModelFiles.kind(out);
-    AtomicOutput.refuseOverwritingInput(out, input.lm);
+    ModelFiles.outputKind(out);
+    OutputSet outputs = OutputSet.open(java.util.Collections.singletonMap("--out", out), java.util.List.of(input.lm));
     BackoffModel model = input.loadExact(spec.commandLine().getErr());
-    ModelFiles.save(model, out);
+    ModelFiles.save(model, out, spec.commandLine().getOut());
+    outputs.commit();
     long n = 0;
     for (int k = 1; k <= model.order(); k++) n += model.ngramCount(k);
-    spec.commandLine().getOut().println("copied " + input.lm + " to " + out + ": " + model.order() + "-gram model, " + n + " n-grams, "
+    // With --out - the model itself takes standard output: the line goes to stderr then.
+    java.io.PrintWriter report = OutputTarget.kind(out) == OutputTarget.Kind.STDOUT ? spec.commandLine().getErr() : spec.commandLine().getOut();
+    report.println("copied " + input.lm + " to " + out + ": " + model.order() + "-gram model, " + n + " n-grams, "
         + model.vocabularySize() + " token ids");
-    spec.commandLine().getOut().flush();
+    report.flush();
     return 0;
   }
 }

@@ -12,6 +12,7 @@ import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import steelyard.io.JsonOutput;
+import steelyard.io.OutputSet;
 import steelyard.lm.CompactModel;
 import steelyard.lm.ModelFiles;
 import steelyard.lm.ModelMetadata;
@@ -34,11 +35,12 @@ public final class LmInfoCommand implements Callable<Integer> {
   @Override
   public Integer call() {
     input.require();
-    if (json.file != null) steelyard.io.AtomicOutput.refuseOverwritingInput(json.file, input.lm);
+    OutputSet outputs = OutputSet.open(java.util.Collections.singletonMap("--json", json.file), java.util.List.of(input.lm));
     CompactModel lm = input.load(spec.commandLine().getErr());
     ObjectNode o = describe(lm, input.lm);
     if (json.file != null) {
       json.write(o, spec.commandLine().getOut());
+      outputs.commit();
       if (json.toStdout()) return 0;
     }
     spec.commandLine().getOut().print(text(lm, o));

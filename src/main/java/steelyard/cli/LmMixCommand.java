@@ -17,6 +17,8 @@ import picocli.CommandLine.Spec;
 import steelyard.io.AtomicOutput;
 import steelyard.io.JsonOutput;
 import steelyard.io.InputException;
+import steelyard.io.OutputSet;
+import steelyard.io.OutputTarget;
 import steelyard.lm.BackoffModel;
 import steelyard.lm.LmState;
 import steelyard.lm.MixtureModel;
@@ -60,27 +62,32 @@ public final class LmMixCommand implements Callable<Integer> {
     if (models.size() < 2) throw InputException.option("--lm", "only " + models.size() + " model given", "at least two --lm files");
     List<Path> inputs = new ArrayList<>(models);
     inputs.add(text);
-    AtomicOutput.refuseOverwritingInput(out, inputs.toArray(new Path[0]));
-    if (json.file != null) AtomicOutput.refuseOverwritingInput(json.file, inputs.toArray(new Path[0]));
+    OutputSet outputs = OutputSet.open(LmModelInput.outputs("--out", out, "--json", json.file), inputs);
     List<BackoffModel> comps = new ArrayList<>();
     ModelFiles.LoadOptions loading = new ModelFiles.LoadOptions(BackoffModel.DEFAULT_UNKNOWN_FLOOR_LOG10, w -> LmModelInput.warn(err, w), null);
     for (Path m : models) comps.add(ModelFiles.loadExact(m, loading));
+    String mismatch = StaticMixture.checkCompatible(models, comps);
+    if (mismatch != null) LmModelInput.warn(err, mismatch);
     double[] start = new double[comps.size()];
     java.util.Arrays.fill(start, 1.0 / comps.size());
     MixtureModel uniform = new MixtureModel(comps, start);
     Function<String, List<String>> tokenizer = LmModelInput.tokenizer(uniform, normalisation, spec.commandLine().getParseResult(), err);
     List<List<String>> sentences = new ArrayList<>();
-    LmModelInput.forEachSentence(text, tokenizer, (line, tokens) -> sentences.add(tokens));
+    List<String> warnings = new ArrayList<>();
+    if (mismatch != null) warnings.add(mismatch);
+    LmModelInput.forEachSentence(text, tokenizer, (line, tokens) -> sentences.add(tokens), LmModelInput.warnings(err, warnings));
 
     MixtureWeights.Fit fit = fixedWeights != null ? fixed(comps.size()) : MixtureWeights.fit(componentLogProbs(uniform, sentences), iterations, tolerance);
     MixtureModel mixture = new MixtureModel(comps, fit.weights());
     BackoffModel approx = StaticMixture.approximate(mixture);
     PerplexityResult exact = perplexity(mixture, sentences);
     PerplexityResult written = perplexity(approx, sentences);
-    ModelFiles.save(approx, out);
+    ModelFiles.save(approx, out, spec.commandLine().getOut());
 
     ObjectNode report = report(fit, exact, written);
+    warnings.forEach(report.putArray("warnings")::add);
     json.write(report, spec.commandLine().getOut());
+    outputs.commit();
     if (!json.toStdout()) printText(fit, exact, written);
     return 0;
   }
@@ -151,7 +158,8 @@ public final class LmMixCommand implements Callable<Integer> {
   }
 
   private void printText(MixtureWeights.Fit fit, PerplexityResult exact, PerplexityResult written) {
-    PrintWriter o = spec.commandLine().getOut();
+    // The model itself takes standard output with --out -: the report goes to stderr then.
+    PrintWriter o = OutputTarget.kind(out) == OutputTarget.Kind.STDOUT ? spec.commandLine().getErr() : spec.commandLine().getOut();
     for (int i = 0; i < models.size(); i++) o.printf(Locale.ROOT, "weight %.6f  %s%n", fit.weights()[i], models.get(i));
     o.printf(Locale.ROOT, "weights from %s (%d EM iterations)%n", fixedWeights != null ? "--mix-weights" : "EM on " + text, fit.iterations());
     o.printf(Locale.ROOT, "held-out perplexity, exact mixture:        %.4f%n", exact.perplexity());

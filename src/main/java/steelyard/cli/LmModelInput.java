@@ -94,10 +94,24 @@ public final class LmModelInput {
 
   /** Calls {@code sink} with (line number, tokens) for every line of {@code text}. */
   static void forEachSentence(Path text, Function<String, List<String>> tokenizer, SentenceSink sink) {
+    forEachSentence(text, tokenizer, sink, w -> { });
+  }
+
+  /**
+   * Calls {@code sink} with (line number, tokens) for every line of {@code text}; a first line that looks like
+   * a CSV header gives one warning to {@code warnings}.
+   */
+  static void forEachSentence(Path text, Function<String, List<String>> tokenizer, SentenceSink sink, java.util.function.Consumer<String> warnings) {
     try (BufferedReader in = InputFiles.open(text)) {
       long line = 0;
       String raw;
-      while ((raw = in.readLine()) != null) sink.accept(++line, tokenizer.apply(raw));
+      while ((raw = in.readLine()) != null) {
+        if (line == 0) {
+          String w = InputFiles.csvHeaderWarning(text, raw);
+          if (w != null) warnings.accept(w);
+        }
+        sink.accept(++line, tokenizer.apply(raw));
+      }
     } catch (IOException e) {
       throw InputException.inFile(text, "cannot read (" + e.getMessage() + ")", "a readable text file").withCause(e);
     }
@@ -107,6 +121,22 @@ public final class LmModelInput {
   @FunctionalInterface
   interface SentenceSink {
     void accept(long line, List<String> tokens);
+  }
+
+  /** A warning sink that prints to {@code err} and keeps the warning for a JSON report. */
+  static java.util.function.Consumer<String> warnings(PrintWriter err, List<String> kept) {
+    return w -> {
+      kept.add(w);
+      warn(err, w);
+    };
+  }
+
+  /** Output paths by option, in order, for {@link steelyard.io.OutputSet#open} (null paths are skipped there). */
+  static java.util.Map<String, Path> outputs(String option, Path path, String option2, Path path2) {
+    java.util.Map<String, Path> m = new java.util.LinkedHashMap<>();
+    m.put(option, path);
+    m.put(option2, path2);
+    return m;
   }
 
   static void warn(PrintWriter err, String message) {

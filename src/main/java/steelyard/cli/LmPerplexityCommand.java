@@ -10,6 +10,7 @@ import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import steelyard.io.JsonOutput;
+import steelyard.io.OutputSet;
 import steelyard.lm.CompactModel;
 import steelyard.lm.eval.Perplexity;
 import steelyard.lm.eval.PerplexityResult;
@@ -30,15 +31,18 @@ public final class LmPerplexityCommand implements Callable<Integer> {
   public Integer call() {
     input.require();
     PrintWriter err = spec.commandLine().getErr();
-    if (json.file != null) steelyard.io.AtomicOutput.refuseOverwritingInput(json.file, input.lm, text);
+    OutputSet outputs = OutputSet.open(java.util.Collections.singletonMap("--json", json.file), java.util.List.of(input.lm, text));
     CompactModel lm = input.load(err);
     var tokenizer = LmModelInput.tokenizer(lm, normalisation, spec.commandLine().getParseResult(), err);
     Perplexity ppl = new Perplexity(lm);
-    LmModelInput.forEachSentence(text, tokenizer, ppl::add);
+    java.util.List<String> warnings = new java.util.ArrayList<>();
+    LmModelInput.forEachSentence(text, tokenizer, ppl::add, LmModelInput.warnings(err, warnings));
     PerplexityResult r = ppl.result();
     if (json.file != null) {
       ObjectNode o = json(r);
+      warnings.forEach(o.putArray("warnings")::add);
       json.write(o, spec.commandLine().getOut());
+      outputs.commit();
       if (json.toStdout()) return 0;
     }
     PrintWriter out = spec.commandLine().getOut();

@@ -16,6 +16,8 @@ import picocli.CommandLine.Spec;
 import steelyard.io.AtomicOutput;
 import steelyard.io.JsonOutput;
 import steelyard.io.InputException;
+import steelyard.io.OutputSet;
+import steelyard.io.OutputTarget;
 import steelyard.lm.BackoffModel;
 import steelyard.lm.LanguageModel;
 import steelyard.lm.ModelFiles;
@@ -51,26 +53,28 @@ public final class LmPruneCommand implements Callable<Integer> {
     if (!(threshold >= 0) || Double.isInfinite(threshold))
       throw InputException.option("--threshold", "'" + threshold + "' is not a finite number >= 0", "a relative-entropy threshold such as 1e-7");
     Path[] inputs = text == null ? new Path[] {input.lm} : new Path[] {input.lm, text};
-    AtomicOutput.refuseOverwritingInput(out, inputs);
-    if (json.file != null) AtomicOutput.refuseOverwritingInput(json.file, inputs);
+    OutputSet outputs = OutputSet.open(LmModelInput.outputs("--out", out, "--json", json.file), java.util.Arrays.asList(inputs));
+    List<String> warnings = new ArrayList<>();
     BackoffModel model = input.loadExact(err);
     if (model.metadata().stream().anyMatch(l -> l.replace(" ", "").endsWith("smoothing=mkn"))) {
       LmModelInput.warn(err, "this is a modified Kneser-Ney model; Kneser-Ney models lose more under heavy entropy pruning "
           + "than Witten-Bell or absolute-discount models (Chelba et al. 2010): for hard pruning, train with --smoothing wb or abs");
     }
     EntropyPruner.Result r = EntropyPruner.prune(model, threshold);
-    ModelFiles.save(r.model(), out);
+    ModelFiles.save(r.model(), out, spec.commandLine().getOut());
     PerplexityResult before = null;
     PerplexityResult after = null;
     if (text != null) {
       Function<String, List<String>> tokenizer = LmModelInput.tokenizer(model, normalisation, spec.commandLine().getParseResult(), err);
       List<List<String>> sentences = new ArrayList<>();
-      LmModelInput.forEachSentence(text, tokenizer, (line, tokens) -> sentences.add(tokens));
+      LmModelInput.forEachSentence(text, tokenizer, (line, tokens) -> sentences.add(tokens), LmModelInput.warnings(err, warnings));
       before = perplexity(model, sentences);
       after = perplexity(r.model(), sentences);
     }
     ObjectNode report = report(r, before, after);
+    warnings.forEach(report.putArray("warnings")::add);
     json.write(report, spec.commandLine().getOut());
+    outputs.commit();
     if (!json.toStdout()) printText(r, before, after);
     return 0;
   }
@@ -105,7 +109,8 @@ public final class LmPruneCommand implements Callable<Integer> {
   }
 
   private void printText(EntropyPruner.Result r, PerplexityResult before, PerplexityResult after) {
-    PrintWriter o = spec.commandLine().getOut();
+    // The model itself takes standard output with --out -: the report goes to stderr then.
+    PrintWriter o = OutputTarget.kind(out) == OutputTarget.Kind.STDOUT ? spec.commandLine().getErr() : spec.commandLine().getOut();
     for (int k = 0; k < r.before().length; k++)
       o.printf(Locale.ROOT, "order %d  kept %d of %d n-grams%n", k + 1, r.after()[k], r.before()[k]);
     if (before != null) {

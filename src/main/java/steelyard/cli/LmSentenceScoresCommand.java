@@ -12,6 +12,7 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import steelyard.io.AtomicOutput;
 import steelyard.io.CsvWriter;
+import steelyard.io.OutputSet;
 import steelyard.lm.CompactModel;
 import steelyard.lm.eval.Perplexity;
 import steelyard.lm.eval.SentenceScore;
@@ -34,7 +35,7 @@ public final class LmSentenceScoresCommand implements Callable<Integer> {
   public Integer call() {
     input.require();
     PrintWriter err = spec.commandLine().getErr();
-    steelyard.io.AtomicOutput.refuseOverwritingInput(csv, input.lm, text);
+    OutputSet outputs = OutputSet.open(java.util.Collections.singletonMap("--csv", csv), java.util.List.of(input.lm, text));
     CompactModel lm = input.load(err);
     var tokenizer = LmModelInput.tokenizer(lm, normalisation, spec.commandLine().getParseResult(), err);
     Perplexity scorer = new Perplexity(lm);
@@ -48,9 +49,10 @@ public final class LmSentenceScoresCommand implements Callable<Integer> {
         } catch (IOException e) {
           throw new UncheckedIOException(e);
         }
-      });
+      }, warning -> LmModelInput.warn(err, warning));
       rows.flush();
     });
+    outputs.commit();
     return 0;
   }
 }

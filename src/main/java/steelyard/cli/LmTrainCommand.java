@@ -20,6 +20,8 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import steelyard.io.JsonOutput;
 import steelyard.io.InputException;
+import steelyard.io.InputFiles;
+import steelyard.io.OutputSet;
 import steelyard.lm.ModelFiles;
 import steelyard.lm.train.CorpusFile;
 import steelyard.lm.train.Discounts;
@@ -75,8 +77,13 @@ public final class LmTrainCommand implements Callable<Integer> {
   @Override
   public Integer call() throws IOException {
     TrainingOptions options = options();
+    OutputSet outputs = OutputSet.open(LmModelInput.outputs("--out", out, "--json", json.file), java.util.List.of(corpus));
     Normaliser normaliser = Normaliser.create(options.normalisation());
-    CorpusFile lines = new CorpusFile(corpus, normaliser, options.unit());
+    List<String> warnings = new ArrayList<>();
+    CorpusFile lines = new CorpusFile(corpus, normaliser, options.unit(), w -> {
+      warnings.add(w);
+      LmModelInput.warn(spec.commandLine().getErr(), w);
+    });
     Trainer trainer = new Trainer(options);
     TrainedModel trained;
     try (ProgressBar bar = progressBar()) {
@@ -84,12 +91,13 @@ public final class LmTrainCommand implements Callable<Integer> {
       trained = trainer.train(lines);
     }
     long saveStart = System.nanoTime();
-    ModelFiles.save(trained.backoffModel(), out);
+    ModelFiles.save(trained.backoffModel(), out, spec.commandLine().getOut());
     double saveSeconds = (System.nanoTime() - saveStart) / 1e9;
     PrintWriter err = spec.commandLine().getErr();
     err.print(humanReport(trained.report(), saveSeconds));
     err.flush();
-    if (json.file != null) writeJson(trained.report(), saveSeconds);
+    if (json.file != null) writeJson(trained.report(), saveSeconds, warnings);
+    outputs.commit();
     return Main.OK;
   }
 
@@ -102,12 +110,12 @@ public final class LmTrainCommand implements Callable<Integer> {
     if (maxVocab < 0) throw InputException.option("--max-vocab", "negative size " + maxVocab, "0 (no limit) or more");
     int[] minCounts = cutoffs != null ? MinCounts.fromCutoffs(cutoffs, order, minCount, spec.commandLine().getErr())
         : MinCounts.parse(minCount, order);
-    String name = out.getFileName() == null ? "" : out.getFileName().toString().toLowerCase(Locale.ROOT);
-    if (!(name.endsWith(".arpa") || name.endsWith(".arpa.gz") || name.endsWith(".bin")))
-      throw InputException.option("--out", "unknown model file type '" + out + "'", "a name ending in .arpa, .arpa.gz or .bin");
+    ModelFiles.outputKind(out);
     if (sameFile(corpus, out))
       throw InputException.option("--out", "'" + out + "' is the training corpus", "a different file than --corpus");
-    if (!Files.isRegularFile(corpus)) throw InputException.inFile(corpus, "no such file", "a readable corpus file");
+    if (!corpus.toString().equals("-") && !Files.exists(corpus)) throw InputException.inFile(corpus, "no such file", "a readable corpus file");
+    if (vocabMinCount > 0 || maxVocab > 0)
+      InputFiles.requireRereadable(corpus, (vocabMinCount > 0 ? "--vocab-min-count" : "--max-vocab") + " reads the corpus twice (word counts first)");
     return new TrainingOptions(order, normalisation.unit, normalisation.options(), smoothing, vocabMinCount, maxVocab,
         minCounts, 1.0);
   }
@@ -142,7 +150,7 @@ public final class LmTrainCommand implements Callable<Integer> {
     return sb.toString();
   }
 
-  private void writeJson(TrainingReport r, double saveSeconds) {
+  private void writeJson(TrainingReport r, double saveSeconds, List<String> commandWarnings) {
     Map<String, Object> m = new LinkedHashMap<>();
     m.put("model", out.toString());
     m.put("unit", normalisation.unit.name().toLowerCase(Locale.ROOT));
@@ -168,7 +176,9 @@ public final class LmTrainCommand implements Callable<Integer> {
       orders.add(o);
     }
     m.put("ngrams", orders);
-    m.put("warnings", r.warnings());
+    List<String> allWarnings = new ArrayList<>(commandWarnings);
+    allWarnings.addAll(r.warnings());
+    m.put("warnings", allWarnings);
     m.put("seconds_training", r.seconds());
     m.put("seconds_writing", saveSeconds);
     JsonOutput.write(json.file, JsonOutput.tree(m), spec.commandLine().getOut());

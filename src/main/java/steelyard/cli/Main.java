@@ -5,7 +5,9 @@ import java.io.PrintWriter;
 import java.nio.charset.StandardCharsets;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
+import steelyard.io.AtomicOutput;
 import steelyard.io.InputException;
+import steelyard.io.OutputSet;
 
 /**
  * The {@code steelyard} command line: one root command, one class per subcommand.
@@ -29,6 +31,7 @@ import steelyard.io.InputException;
       NetworkCommand.class,
       RunsCommand.class,
       DemoDataCommand.class,
+      GuiCommand.class,
       CommandLine.HelpCommand.class
     })
 public final class Main implements Runnable {
@@ -56,10 +59,7 @@ public final class Main implements Runnable {
   public static CommandLine commandLine() {
     CommandLine cl = new CommandLine(new Main());
     OldSpellings.install(cl);
-    cl.setExecutionStrategy(parsed -> {
-      OldSpellings.warnAboutCommands(parsed);
-      return new CommandLine.RunLast().execute(parsed);
-    });
+    cl.setExecutionStrategy(Main::execute);
     cl.setExecutionExceptionHandler(Main::handleExecutionException);
     cl.setParameterExceptionHandler(Main::handleParameterException);
     cl.setCaseInsensitiveEnumValuesAllowed(true);
@@ -67,6 +67,27 @@ public final class Main implements Runnable {
     cl.setOut(new PrintWriter(new OutputStreamWriter(System.out, StandardCharsets.UTF_8), true));
     cl.setErr(new PrintWriter(new OutputStreamWriter(System.err, StandardCharsets.UTF_8), true));
     return cl;
+  }
+
+  /**
+   * Runs the command after the notices about old spellings, with the output layer's notices on the command's
+   * stderr; a command that fails leaves no output set open (its temporary files are deleted, its targets
+   * untouched).
+   */
+  private static int execute(CommandLine.ParseResult parsed) {
+    OldSpellings.warnAboutCommands(parsed);
+    long mark = OutputSet.mark();
+    PrintWriter err = parsed.commandSpec().commandLine().getErr();
+    return AtomicOutput.withNotices(line -> {
+      err.println(line);
+      err.flush();
+    }, () -> {
+      try {
+        return new CommandLine.RunLast().execute(parsed);
+      } finally {
+        OutputSet.discardOpenedSince(mark);
+      }
+    });
   }
 
   private static int handleExecutionException(Exception e, CommandLine cl, CommandLine.ParseResult parsed) {

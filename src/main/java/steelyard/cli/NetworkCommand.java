@@ -19,6 +19,7 @@ import steelyard.io.AtomicOutput;
 import steelyard.io.HypothesesReader;
 import steelyard.io.InputException;
 import steelyard.io.JsonOutput;
+import steelyard.io.OutputSet;
 import steelyard.io.UtteranceHypotheses;
 import steelyard.lattice.ConfusionNetwork;
 import steelyard.lattice.LatticeChoice;
@@ -74,7 +75,7 @@ public final class NetworkCommand implements Callable<Integer> {
     outputs.put("--dot", dot);
     outputs.put("--arcs", arcs);
     outputs.put("--json", json.file);
-    OutputPaths.refuseClashes(outputs, Arrays.asList(input.hyps, model.lm, weightOptions.weightsFile, normalisation.rules));
+    OutputSet outputSet = OutputSet.open(outputs, Arrays.asList(input.hyps, model.lm, weightOptions.weightsFile, normalisation.rules));
 
     PrintWriter err = spec.commandLine().getErr();
     PrintWriter out = spec.commandLine().getOut();
@@ -92,6 +93,7 @@ public final class NetworkCommand implements Callable<Integer> {
     if (arcs != null) AtomicOutput.writeText(arcs, out, w -> NetworkExport.writeCsv(net, w));
     if (kbest > 0 && !OutputPaths.isStdout(json.file)) printPaths(out, paths, unit);
     if (json.file != null) JsonOutput.write(json.file, summary(s, net, paths, unit, session.weights()), out);
+    outputSet.commit();
     err.printf(Locale.ROOT, "steelyard network: %s: %d hypotheses, %d entered, %d slots, %d arcs%s%n",
         uttId, s.size(), net.enteredCount(), net.slotCount(), net.arcCount(),
         net.capped() ? " (the hypothesis cap applied)" : "");

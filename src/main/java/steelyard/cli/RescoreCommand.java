@@ -2,7 +2,9 @@ package steelyard.cli;
 
 import java.io.PrintWriter;
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.List;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import java.util.concurrent.Callable;
@@ -12,7 +14,7 @@ import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 import steelyard.io.InputException;
-import steelyard.report.OutputPaths;
+import steelyard.io.OutputSet;
 import steelyard.rescore.RescoreRun;
 import steelyard.rescore.RescoreSession;
 
@@ -61,15 +63,19 @@ public final class RescoreCommand implements Callable<Integer> {
     outputs.put("--breakdown", breakdown);
     outputs.put("--json", json.file);
     outputs.put("--save-weights", saveWeights);
-    OutputPaths.refuseClashes(outputs, Arrays.asList(input.hyps, model.lm, references.refs, weightOptions.weightsFile, normalisation.rules));
+    // All outputs or none: checked now, staged while the run writes them, moved into place together at the end.
+    OutputSet outputSet = OutputSet.open(outputs, Arrays.asList(input.hyps, model.lm, references.refs, weightOptions.weightsFile, normalisation.rules));
 
     PrintWriter err = spec.commandLine().getErr();
     RescoreSession session = RescoreSession.open(
         choice.apply(RescoreSupport.config(spec, input, normalisation, model, weightOptions)).build());
     session.warnings().forEach(w -> RescoreSupport.warn(err, w));
+    List<String> surprises = surprises(session);
+    surprises.forEach(w -> RescoreSupport.warn(err, w));
     RescoreRun.Result result = RescoreRun.run(session, input.hyps, references.refs, new RescoreRun.Outputs(picks, breakdown, json.file, saveWeights),
-        run.effectiveThreads(), run.seed, input.skipped(), spec.commandLine().getOut());
-    RescoreSupport.printSummary(err, result, session.method());
+        run.effectiveThreads(), run.seed, input.skipped(), spec.commandLine().getOut(), surprises);
+    outputSet.commit();
+    RescoreSupport.printSummary(err, result, session.method(), session.unit());
     if (references.refs != null) {
       RescoreSupport.record(history, session, new RescoreSupport.InputsUsed(input.hyps, references.refs, normalisation.rules,
           weightOptions.weightsFile), result.summary(), result.ci95(), run.seed);
@@ -77,5 +83,19 @@ public final class RescoreCommand implements Callable<Integer> {
       RescoreSupport.warn(err, "run not recorded in the history: --history records rescoring runs with --refs only");
     }
     return Main.OK;
+  }
+
+  /**
+   * Where the run silently differs from what the command line suggests: a model given but weighted 0, options
+   * the method ignores, picks that go nowhere.
+   */
+  private List<String> surprises(RescoreSession session) {
+    List<String> w = new ArrayList<>();
+    if (model.lm != null && !session.usesModel())
+      w.add("the model " + model.lm + " is loaded but scores nothing: every LM weight is 0 (--lm-weight, --oov-weight, and --lattice-lm-weight with --method lattice)");
+    for (String ignored : weightOptions.ignoredBy(session.method())) w.add(ignored + " has no effect with --method " + session.method().label());
+    if (json.file != null && out == null)
+      w.add("the picks are not written anywhere: --json was given without --out (picks go to standard output only when neither is given); add --out FILE to keep them");
+    return w;
   }
 }

@@ -15,6 +15,7 @@ import picocli.CommandLine.Model.CommandSpec;
 import steelyard.rescore.RescoreConfig;
 import steelyard.rescore.RescoreMethod;
 import steelyard.rescore.RescoreSummary;
+import steelyard.text.Unit;
 
 /** Printing shared by the rescoring commands: warnings and the stderr summary. */
 final class RescoreSupport {
@@ -43,8 +44,11 @@ final class RescoreSupport {
     err.flush();
   }
 
-  /** The run's own warnings, then the summary (with references: error rates and the paired test against rank 1). */
-  static void printSummary(PrintWriter err, RescoreRun.Result r, RescoreMethod method) {
+  /**
+   * The run's own warnings, then the summary (with references: error rates, named WER or CER after the scoring
+   * {@code unit}, and the paired test against rank 1).
+   */
+  static void printSummary(PrintWriter err, RescoreRun.Result r, RescoreMethod method, Unit unit) {
     r.runWarnings().forEach(w -> warn(err, w));
     RescoreSummary s = r.summary();
     boolean withReferences = r.versusFirst() != null;
@@ -53,8 +57,8 @@ final class RescoreSupport {
         s.newTranscripts() > 0 ? ", " + s.newTranscripts() + " are new transcripts" : "",
         s.cappedUtterances() > 0 ? "; the hypothesis cap applied in " + s.cappedUtterances() : "");
     if (withReferences) {
-      err.printf(Locale.ROOT, "  error rate %s (rank 1 %s, N-best oracle %s) over %d utterances%n",
-          percent(s.chosen()), percent(s.first()), percent(s.oracle()), s.scored());
+      err.printf(Locale.ROOT, "  %s %s (rank 1 %s, N-best oracle %s) over %d utterances%n",
+          unit == Unit.CHAR ? "CER" : "WER", percent(s.chosen()), percent(s.first()), percent(s.oracle()), s.scored());
       printVersusFirst(err, r.versusFirst());
     }
     err.println("  note: " + RescoreSummary.NOTICE);

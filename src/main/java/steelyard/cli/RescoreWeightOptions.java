@@ -1,10 +1,13 @@
 package steelyard.cli;
 
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.Map;
 import picocli.CommandLine.Option;
 import steelyard.io.InputException;
+import steelyard.rescore.RescoreMethod;
 import steelyard.rescore.WeightsSpec;
 
 /**
@@ -51,6 +54,21 @@ public final class RescoreWeightOptions {
   @Option(names = "--vote-confidence", paramLabel = "NAME",
       description = "Feature column (one of --features) whose natural-log confidence weighs each hypothesis's vote in consensus/lattice.")
   String voteConfidence;
+
+  /**
+   * The options given on the command line that {@code method} does not use, e.g. {@code --beam} with
+   * {@code nbest}; each deserves a warning, since the run silently differs from what the user asked for.
+   */
+  List<String> ignoredBy(RescoreMethod method) {
+    List<String> out = new ArrayList<>();
+    if (mbrMaxHyps != null && method != RescoreMethod.MBR) out.add("--mbr-max-hyps");
+    boolean search = method == RescoreMethod.LATTICE;
+    if (latticeLmWeight != null && !search) out.add("--lattice-lm-weight");
+    if (latticeLengthWeight != null && !search) out.add("--lattice-length-weight");
+    if (beam != null && !search) out.add("--beam");
+    if (latticeMaxHyps != null && !method.usesNetwork()) out.add("--lattice-max-hyps");
+    return out;
+  }
 
   /**
    * The options as a partial weights spec (the upper layer of a {@link steelyard.rescore.RescoreConfig}, which

@@ -17,11 +17,13 @@ import steelyard.eval.CorpusScorer;
 import steelyard.eval.MissingHypothesisPolicy;
 import steelyard.eval.Pick;
 import steelyard.eval.SystemFilter;
+import steelyard.eval.UtteranceOverlap;
 import steelyard.history.InputFile;
 import steelyard.io.AtomicOutput;
 import steelyard.io.HypothesesReader;
 import steelyard.io.ImportOptions;
 import steelyard.io.InputException;
+import steelyard.io.OutputSet;
 import steelyard.io.Reference;
 import steelyard.io.ReferencesReader;
 import steelyard.io.JsonOutput;
@@ -90,7 +92,7 @@ public final class ScoreCommand implements Callable<Integer> {
     LinkedHashMap<String, Path> outputs = new LinkedHashMap<>();
     outputs.put("--json", json.file);
     outputs.put("--csv", csv);
-    OutputPaths.refuseClashes(outputs, Arrays.asList(hypotheses.hyps, refs, normalisation.rules));
+    OutputSet outputSet = OutputSet.open(outputs, Arrays.asList(hypotheses.hyps, refs, normalisation.rules));
 
     List<String> warnings = new ArrayList<>();
     ImportOptions options = hypotheses.imports.importOptions(spec.commandLine().getErr(), w -> {
@@ -108,9 +110,13 @@ public final class ScoreCommand implements Callable<Integer> {
     try (HypothesesReader reader = HypothesesReader.open(hypotheses.hyps, options)) {
       if (system != null && !reader.hasSystemColumn())
         throw InputException.inFile(hypotheses.hyps, "--system needs a 'system' column, which this file does not have", "a column named system");
-      score = scorer.score(refMap, system == null ? reader : new SystemFilter(reader, system));
+      SystemFilter filter = system == null ? null : new SystemFilter(reader, system);
+      score = scorer.score(refMap, filter == null ? reader : filter);
+      if (filter != null) filter.requireSeen("--system", hypotheses.hyps);
       hypRows = reader.rowsRead();
     }
+    warnAbout(UtteranceOverlap.check(hypotheses.hyps.toString() + (system == null ? "" : " system=" + system), refs, new ArrayList<>(refMap.keySet()), score.missingHypotheses(),
+        score.missingReferences()), warnings, spec.commandLine().getErr());
     Bootstrap.Interval ci = Bootstrap.corpusRate(score.table().includedErrors(), score.table().includedReferenceTokens(),
         resamples, run.seed, run.effectiveThreads());
     String source = system == null ? hypotheses.hyps.toString() : hypotheses.hyps + " system=" + system;
@@ -121,6 +127,7 @@ public final class ScoreCommand implements Callable<Integer> {
     PrintWriter stdout = spec.commandLine().getOut();
     if (csv != null) AtomicOutput.writeText(csv, stdout, out -> ScoreReport.csv(score, out, spreadsheetSafe));
     json.write(ScoreReport.json(score, context), stdout);
+    outputSet.commit();
     printReport(spec, OutputPaths.isStdout(csv) ? csv : json.file, ScoreReport.text(score, context));
     history.record(history.run().warnings(warnings).scored(score).interval(ci, resamples, run.seed).unit(unit, normaliser.describe())
         .label(system).input(InputFile.HYPOTHESES, hypotheses.hyps, hypRows).input(InputFile.REFERENCES, refs, refMap.size())
@@ -133,6 +140,15 @@ public final class ScoreCommand implements Callable<Integer> {
     PrintWriter w = OutputPaths.isStdout(other) ? spec.commandLine().getErr() : spec.commandLine().getOut();
     w.print(text);
     w.flush();
+  }
+
+  /** Prints {@code warning} (if not null) on the command's stderr {@code err} and keeps it for the report's warnings. */
+  static void warnAbout(String warning, List<String> warnings, PrintWriter err) {
+    if (warning == null) return;
+    synchronized (warnings) {
+      warnings.add(warning);
+    }
+    RescoreSupport.warn(err, warning);
   }
 
   /** Validates the counts every scoring command takes. */

@@ -16,6 +16,7 @@ import java.util.SortedMap;
 import java.util.TreeMap;
 import java.util.function.Supplier;
 import steelyard.io.AtomicOutput;
+import steelyard.io.OutputSet;
 import steelyard.io.InputException;
 
 /**
@@ -70,7 +71,7 @@ public final class DemoData {
 
   /**
    * Generates and writes every file into {@code dir} (created if needed), each through {@link AtomicOutput}
-   * (temporary file beside the target, then moved into place). Returns the paths written, in file-name order.
+   * (temporary file beside the target), all moved into place together at the end ({@link OutputSet}). Returns the paths written, in file-name order.
    *
    * @throws InputException when the directory cannot be created or a file cannot be written
    */
@@ -82,10 +83,15 @@ public final class DemoData {
       throw InputException.inFile(dir, "cannot create the output directory (" + ex + ")", "a directory that can be created and written").withCause(ex);
     }
     List<Path> written = new ArrayList<>();
-    for (Map.Entry<String, byte[]> e : files.entrySet()) {
-      Path target = dir.resolve(e.getKey());
-      AtomicOutput.writeBytes(target, out -> out.write(e.getValue()));
-      written.add(target);
+    Map<String, Path> targets = new java.util.LinkedHashMap<>();
+    for (String name : files.keySet()) targets.put(name, dir.resolve(name));
+    try (OutputSet set = OutputSet.open(targets, List.of())) { // all files or none
+      for (Map.Entry<String, byte[]> e : files.entrySet()) {
+        Path target = dir.resolve(e.getKey());
+        AtomicOutput.writeBytes(target, out -> out.write(e.getValue()));
+        written.add(target);
+      }
+      set.commit();
     }
     return written;
   }

@@ -5,7 +5,9 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.EnumSet;
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
 import java.util.Locale;
 import java.util.Set;
 import java.util.function.BooleanSupplier;
@@ -82,6 +84,15 @@ public final class DemoRun {
             new HeldOutRun.Spec("Delivery dockets", dockets, data.resolve("dockets-dev.nbest.csv"), data.resolve("dockets-dev.refs.csv"),
                 data.resolve("dockets-test.nbest.csv"), data.resolve("dockets-test.refs.csv"),
                 base.withMethods(EnumSet.of(RescoreMethod.LATTICE)).withTune(DOCKET_WEIGHTS))));
+  }
+
+  /** Every file {@link #run} writes into {@code outDir}, keyed by its name: what a caller stages as one all-or-none set. */
+  public static Map<String, Path> outputs(List<Part> parts, Path outDir) {
+    Map<String, Path> out = new LinkedHashMap<>();
+    for (Part p : parts)
+      for (String ending : HeldOutRun.Result.FILES) out.put(p.stem() + ending, outDir.resolve(p.stem() + ending));
+    out.put(REPORT, outDir.resolve(REPORT));
+    return out;
   }
 
   /**

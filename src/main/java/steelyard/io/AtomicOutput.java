@@ -8,35 +8,38 @@ import java.io.IOException;
 import java.io.InterruptedIOException;
 import java.io.OutputStream;
 import java.io.OutputStreamWriter;
+import java.io.PrintStream;
 import java.io.Writer;
 import java.nio.channels.Channels;
 import java.nio.channels.FileChannel;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.AtomicMoveNotSupportedException;
-import java.nio.file.DirectoryStream;
-import java.nio.file.FileAlreadyExistsException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
 import java.nio.file.StandardOpenOption;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Set;
-import java.util.concurrent.ConcurrentHashMap;
-import java.util.concurrent.ThreadLocalRandom;
 
 /**
  * Writes an output file atomically: to a temporary file in the same directory, then moved into place, so a
- * crash leaves either the old file or the complete new one, never a partial one. {@code -} means stdout.
+ * crash leaves either the old file or the complete new one, never a partial one.
  *
- * <p>The temporary file is named {@code .NAME.steelyard-tmp-RANDOM} beside the target, flushed and forced to
- * disk ({@link FileChannel#force}) before an atomic rename (a plain replacing move where the file system has
- * no atomic rename). On any failure, including an exception from the body, the temporary file is deleted and
- * the old target is untouched. A target that is a symbolic link keeps the link and replaces the file it
- * points to (the temporary file goes beside that file). A normal JVM shutdown (Ctrl-C) also deletes
- * unfinished temporary files. Only a hard kill can leave one behind; such leftovers are reported on stderr
- * by the next write to the same target but never deleted, because a file the tool did not just create may
- * belong to the user.
+ * <p>The temporary file is named {@code .NAME.steelyard-tmp-PID-RANDOM} beside the target (see
+ * {@link TempFiles}), flushed and forced to disk ({@link FileChannel#force}) before an atomic rename (a plain
+ * replacing move where the file system has no atomic rename). On any failure, including an exception from the
+ * body, the temporary file is deleted and the old target is untouched. A target that is a symbolic link keeps
+ * the link and replaces the file it points to (the temporary file goes beside that file). A normal JVM
+ * shutdown (Ctrl-C) also deletes unfinished temporary files; a hard kill can leave one behind, which the next
+ * write to the same target deletes once the process that wrote it no longer runs (and says so on stderr).
+ *
+ * <p>Only regular files are replaced ({@link OutputTarget}): {@code -} and this process's own
+ * {@code /dev/stdout} or {@code /dev/stderr} are the JVM's streams, and any other existing file that is not a
+ * regular file (a device, a FIFO, {@code /dev/fd/N} from process substitution) is written in place, streaming.
+ *
+ * <p>When an {@link OutputSet} is open on the calling thread and holds the target, the write goes into that
+ * set's temporary file and is moved into place only when the set commits, together with the set's other
+ * outputs.
  *
  * <p>Test-only switch: the system property {@value #PAUSE_PROPERTY}{@code =N} makes every write pause forever
  * once N bytes are in the temporary file (after printing one line to stderr), so a test can kill the process
@@ -45,11 +48,8 @@ import java.util.concurrent.ThreadLocalRandom;
 public final class AtomicOutput {
   /** System property: pause after this many bytes (tests of interrupted writes only). */
   public static final String PAUSE_PROPERTY = "steelyard.test.pauseAfterBytes";
-  /** Infix of temporary file names: {@code .NAME} + this + random. */
+  /** Infix of temporary file names: {@code .NAME} + this + PID + {@code -} + random. */
   public static final String TEMP_INFIX = ".steelyard-tmp-";
-
-  private static final Set<Path> IN_PROGRESS = ConcurrentHashMap.newKeySet();
-  private static volatile boolean hookInstalled;
 
   private AtomicOutput() {}
 
@@ -63,6 +63,15 @@ public final class AtomicOutput {
   @FunctionalInterface
   public interface StreamBody {
     void write(OutputStream out) throws IOException;
+  }
+
+  /**
+   * Runs {@code body} with the notices that writing outputs gives on the calling thread (a leftover temporary
+   * file removed or left alone; one line each, starting {@code steelyard: warning:}) sent to {@code sink}, e.g. a
+   * command's own stderr writer; without it they go to {@link System#err}.
+   */
+  public static <T> T withNotices(java.util.function.Consumer<String> sink, java.util.function.Supplier<T> body) {
+    return TempFiles.withNotices(sink, body);
   }
 
   /** Writes UTF-8 text to {@code target} (or stdout when it is {@code -}). */
@@ -80,11 +89,13 @@ public final class AtomicOutput {
   }
 
   /**
-   * As {@link #writeText(Path, WriterBody)}, but {@code -} writes to {@code stdout} (a command's own output
-   * writer, e.g. picocli's {@code getOut()}), which is flushed and left open.
+   * As {@link #writeText(Path, WriterBody)}, but standard output ({@code -}, or this process's
+   * {@code /dev/stdout}: {@link OutputTarget.Kind#STDOUT}) is {@code stdout} (a command's own output writer,
+   * e.g. picocli's {@code getOut()}), which is flushed and left open. Every other target, special files and
+   * targets staged by an open {@link OutputSet} included, is written as by {@link #writeText(Path, WriterBody)}.
    */
   public static void writeText(Path target, Writer stdout, WriterBody body) {
-    if (!isStdout(target)) {
+    if (OutputTarget.kind(target) != OutputTarget.Kind.STDOUT) {
       writeText(target, body);
       return;
     }
@@ -96,6 +107,8 @@ public final class AtomicOutput {
         }
       });
       stdout.flush();
+      if (stdout instanceof java.io.PrintWriter pw && pw.checkError())
+        throw new IOException("the stream reported an error (closed pipe or full disk?)");
     } catch (IOException e) {
       throw InputException.inFile(target, "cannot write to standard output (" + e + ")", null).withCause(e);
     }
@@ -103,35 +116,38 @@ public final class AtomicOutput {
 
   /** Writes bytes to {@code target} (or stdout when it is {@code -}) with the same guarantees as {@link #writeText}. */
   public static void writeBytes(Path target, StreamBody body) {
-    if (isStdout(target)) {
-      writeStdout(body);
+    switch (OutputTarget.kind(target)) {
+      case STDOUT:
+        writeStream(target, System.out, body);
+        return;
+      case STDERR:
+        writeStream(target, System.err, body);
+        return;
+      case IN_PLACE:
+        writeInPlace(target, body);
+        return;
+      default:
+        break;
+    }
+    OutputSet set = OutputSet.holding(target);
+    if (set != null) {
+      set.stage(target, body);
       return;
     }
-    Path abs = followLink(target.toAbsolutePath().normalize());
-    Path dir = abs.getParent();
-    if (Files.isDirectory(abs)) throw InputException.inFile(target, "is a directory", "a file path for the output");
-    if (dir == null || !Files.isDirectory(dir)) {
-      throw InputException.inFile(target, "directory " + dir + " does not exist", "an output path in an existing directory");
-    }
-    reportStaleTemporaryFiles(target);
-    Path tmp = createTemporary(target, abs);
+    Path abs = checkedTarget(target);
+    TempFiles.cleanLeftovers(abs);
+    Path tmp = TempFiles.create(target, abs);
     boolean moved = false;
     try {
-      try (FileChannel ch = FileChannel.open(tmp, StandardOpenOption.WRITE)) {
-        OutputStream os = new BufferedOutputStream(new PausingStream(Channels.newOutputStream(ch), tmp), 1 << 16);
-        body.write(new KeepOpen(os));
-        os.flush();
-        ch.force(true);
-      }
+      writeTemporary(tmp, body);
       copyPermissions(abs, tmp);
       moveIntoPlace(tmp, abs);
       moved = true;
-      syncDirectory(dir);
+      syncDirectory(abs.getParent());
     } catch (IOException e) {
-      throw InputException.inFile(target, "cannot write output (" + e + ")", "a writable output path with free space").withCause(e);
+      throw cannotWrite(target, e);
     } finally {
-      IN_PROGRESS.remove(tmp);
-      if (!moved) deleteQuietly(tmp);
+      TempFiles.finished(tmp, moved);
     }
   }
 
@@ -152,61 +168,70 @@ public final class AtomicOutput {
     }
   }
 
-  /** Leftover temporary files of earlier, killed writes to {@code target}, sorted by name. */
+  /**
+   * Temporary files beside {@code target} that no write of this process is using, sorted by name: leftovers
+   * of killed runs and files other running processes are writing.
+   */
   public static List<Path> staleTemporaryFiles(Path target) {
-    List<Path> out = new ArrayList<>();
-    if (isStdout(target)) return out;
-    Path abs = target.toAbsolutePath().normalize();
+    if (isStdout(target)) return new ArrayList<>();
+    return TempFiles.leftovers(target);
+  }
+
+  /** The absolute target (symbolic links followed), after checking that it can be replaced: its directory exists. */
+  static Path checkedTarget(Path target) {
+    Path abs = followLink(target.toAbsolutePath().normalize());
     Path dir = abs.getParent();
-    if (dir == null || abs.getFileName() == null || !Files.isDirectory(dir)) return out;
-    String prefix = "." + abs.getFileName() + TEMP_INFIX;
-    try (DirectoryStream<Path> ds = Files.newDirectoryStream(dir, p -> p.getFileName().toString().startsWith(prefix))) {
-      for (Path p : ds) if (!IN_PROGRESS.contains(p)) out.add(p);
-    } catch (IOException e) {
-      return out;
+    if (Files.isDirectory(abs)) throw InputException.inFile(target, "is a directory", "a file path for the output");
+    if (dir == null || !Files.isDirectory(dir)) {
+      throw InputException.inFile(target, "directory " + dir + " does not exist", "an output path in an existing directory");
     }
-    out.sort(null);
-    return out;
+    return abs;
+  }
+
+  /** Writes {@code body} into the (existing, empty or stale) temporary file {@code tmp} and forces it to disk. */
+  static void writeTemporary(Path tmp, StreamBody body) throws IOException {
+    try (FileChannel ch = FileChannel.open(tmp, StandardOpenOption.WRITE, StandardOpenOption.TRUNCATE_EXISTING)) {
+      OutputStream os = new BufferedOutputStream(new PausingStream(Channels.newOutputStream(ch), tmp), 1 << 16);
+      body.write(new KeepOpen(os));
+      os.flush();
+      ch.force(true);
+    }
+  }
+
+  static InputException cannotWrite(Path target, IOException e) {
+    return InputException.inFile(target, "cannot write output (" + e + ")", "a writable output path with free space").withCause(e);
   }
 
   private static boolean isStdout(Path p) {
     return p.toString().equals("-");
   }
 
-  private static void writeStdout(StreamBody body) {
+  private static void writeStream(Path target, PrintStream stream, StreamBody body) {
     try {
-      OutputStream os = new KeepOpen(System.out);
+      OutputStream os = new KeepOpen(stream);
       body.write(os);
       os.flush();
+      if (stream.checkError()) throw new IOException("the stream reported an error (closed pipe or full disk?)");
     } catch (IOException e) {
-      throw InputException.inFile(Path.of("-"), "cannot write to standard output (" + e + ")", null).withCause(e);
+      throw InputException.inFile(target, "cannot write to " + (target.toString().equals("-") ? "standard output" : target)
+          + " (" + e.getMessage() + ")", null).withCause(e);
     }
   }
 
-  private static void reportStaleTemporaryFiles(Path target) {
-    for (Path p : staleTemporaryFiles(target)) {
-      System.err.println("steelyard: warning: " + p + " is left over from an interrupted write; it is not deleted automatically");
+  /** Streams into an existing special file (device, FIFO, descriptor); never creates, truncates or replaces it. */
+  private static void writeInPlace(Path target, StreamBody body) {
+    try (OutputStream raw = Files.newOutputStream(target, StandardOpenOption.WRITE, StandardOpenOption.APPEND)) {
+      OutputStream os = new BufferedOutputStream(raw, 1 << 16);
+      body.write(new KeepOpen(os));
+      os.flush();
+    } catch (java.nio.file.NoSuchFileException e) {
+      throw InputException.inFile(target, "no such file or descriptor", "an open descriptor, an existing device or FIFO, or a regular file path").withCause(e);
+    } catch (IOException e) {
+      throw cannotWrite(target, e);
     }
   }
 
-  private static Path createTemporary(Path target, Path abs) {
-    installHook();
-    for (int attempt = 0; ; attempt++) {
-      String random = Long.toUnsignedString(ThreadLocalRandom.current().nextLong(), 36);
-      Path tmp = abs.resolveSibling("." + abs.getFileName() + TEMP_INFIX + random);
-      try {
-        Files.newByteChannel(tmp, StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE).close();
-        IN_PROGRESS.add(tmp);
-        return tmp;
-      } catch (FileAlreadyExistsException e) {
-        if (attempt > 100) throw InputException.inFile(target, "cannot create a temporary file beside it", "a writable directory");
-      } catch (IOException e) {
-        throw InputException.inFile(target, "cannot create a temporary file beside it (" + e + ")", "a writable directory").withCause(e);
-      }
-    }
-  }
-
-  private static void moveIntoPlace(Path tmp, Path abs) throws IOException {
+  static void moveIntoPlace(Path tmp, Path abs) throws IOException {
     try {
       Files.move(tmp, abs, StandardCopyOption.ATOMIC_MOVE);
     } catch (AtomicMoveNotSupportedException e) {
@@ -215,7 +240,7 @@ public final class AtomicOutput {
   }
 
   /** Keeps an existing target's permission bits, so replacing a file does not change who may read it. */
-  private static void copyPermissions(Path abs, Path tmp) {
+  static void copyPermissions(Path abs, Path tmp) {
     try {
       if (Files.exists(abs)) Files.setPosixFilePermissions(tmp, Files.getPosixFilePermissions(abs));
     } catch (IOException | UnsupportedOperationException e) {
@@ -224,7 +249,7 @@ public final class AtomicOutput {
   }
 
   /** Makes the rename itself durable; some file systems cannot open directories, which is harmless. */
-  private static void syncDirectory(Path dir) {
+  static void syncDirectory(Path dir) {
     try (FileChannel d = FileChannel.open(dir, StandardOpenOption.READ)) {
       d.force(true);
     } catch (IOException | RuntimeException e) {
@@ -247,23 +272,6 @@ public final class AtomicOutput {
       return Files.exists(a) && Files.exists(b) && Files.isSameFile(a, b);
     } catch (IOException e) {
       return false;
-    }
-  }
-
-  private static void deleteQuietly(Path p) {
-    try {
-      Files.deleteIfExists(p);
-    } catch (IOException e) {
-      System.err.println("steelyard: warning: could not delete temporary file " + p + " (" + e.getMessage() + ")");
-    }
-  }
-
-  private static void installHook() {
-    if (hookInstalled) return;
-    synchronized (IN_PROGRESS) {
-      if (hookInstalled) return;
-      Runtime.getRuntime().addShutdownHook(new Thread(() -> IN_PROGRESS.forEach(AtomicOutput::deleteQuietly), "steelyard-temp-cleanup"));
-      hookInstalled = true;
     }
   }
 

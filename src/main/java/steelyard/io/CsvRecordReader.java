@@ -9,7 +9,8 @@ import java.util.Arrays;
 /**
  * Streaming RFC 4180 record reader: comma-separated, fields optionally in double quotes, a doubled quote
  * inside a quoted field stands for one quote, quoted fields may span lines. Records end at LF or CRLF; a CR
- * inside quotes, or not followed by LF, is data and kept. Wholly empty lines between records are skipped.
+ * inside quotes, or not followed by LF, is data and kept, except that a lone CR before the first LF of the
+ * file means CR-only line ends, an {@link InputException}. Wholly empty lines between records are skipped.
  *
  * <p>Tracks the physical line on which each record starts, for messages. A quote inside an unquoted field or
  * text after a closing quote is a row-level problem ({@link #problem()}), so lenient mode can skip the row;
@@ -39,6 +40,8 @@ final class CsvRecordReader implements Closeable {
   private boolean[] keep;
   private String problem;
   private String problemExpected;
+  /** Whether a record has ended at a line feed yet: a lone CR before that means CR-only line ends. */
+  private boolean lineFeedSeen;
 
   CsvRecordReader(Path file, Reader in) {
     this.file = file;
@@ -121,6 +124,7 @@ final class CsvRecordReader implements Closeable {
       read();
       length = readQuoted(kept, fieldLine);
       c = read();
+      if (c == '\r' && peek() != '\n' && !lineFeedSeen) throw crOnly();
       if (c != ',' && c != '\n' && c >= 0 && !(c == '\r' && peek() == '\n')) {
         note("text after the closing quote of field " + (count + 1), "a comma or the end of the row after a closing quote");
         while (c >= 0 && c != ',' && c != '\n' && !(c == '\r' && peek() == '\n')) {
@@ -133,7 +137,10 @@ final class CsvRecordReader implements Closeable {
       c = readUnquoted(kept, fieldLine);
     }
     if (c == '\r') c = read();
-    if (c == '\n') line++;
+    if (c == '\n') {
+      line++;
+      lineFeedSeen = true;
+    }
     store(kept ? sb.toString() : null);
     return c == ',' ? ',' : -1;
   }
@@ -183,6 +190,7 @@ final class CsvRecordReader implements Closeable {
       char ch = buf[pos++];
       if (ch == ',' || ch == '\n') return ch;
       if (ch == '\r' && peek() == '\n') return '\r';
+      if (ch == '\r' && !lineFeedSeen) throw crOnly();
       if (ch == '"') note("double quote inside unquoted field " + (count + 1), "the whole field in double quotes, with each inner quote doubled (\"\")");
       if (++length > MAX_FIELD_CHARS) throw tooLong(fieldLine);
       if (kept) sb.append(ch);
@@ -208,6 +216,16 @@ final class CsvRecordReader implements Closeable {
   private void skipLineEnd() {
     if (read() == '\r') read();
     line++;
+    lineFeedSeen = true;
+  }
+
+  /**
+   * A carriage return not followed by a line feed before any line feed: the file has CR-only line ends (classic
+   * Mac OS), which would otherwise read as one long header row and zero data rows.
+   */
+  private InputException crOnly() {
+    return InputException.at(file, recordLine, "the line ends are lone carriage returns (CR, as in classic Mac OS files), so the file would read as one row",
+        "LF or CRLF line ends; convert the file's line ends first");
   }
 
   private boolean peekCrLf() {

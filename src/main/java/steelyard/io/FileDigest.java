@@ -19,8 +19,13 @@ import java.util.HexFormat;
 public record FileDigest(long bytes, String sha256) {
   private static final int BLOCK = 1 << 16;
 
-  /** Reads {@code file} to the end; an unreadable or missing file is an {@link InputException} naming it. */
+  /**
+   * Reads {@code file} to the end; an unreadable or missing file is an {@link InputException} naming it, and so
+   * is a pipe or other stream ({@link InputFiles#isStream}): it was read once already, so hashing it again would
+   * hash nothing (or, for a FIFO, wait for a writer that never comes).
+   */
   public static FileDigest of(Path file) {
+    InputFiles.requireRereadable(file, "its size and SHA-256 take a second read");
     try (InputStream in = Files.newInputStream(file)) {
       MessageDigest md = MessageDigest.getInstance("SHA-256");
       byte[] buf = new byte[BLOCK];

@@ -255,6 +255,8 @@ public final class HypothesesReader implements Closeable, Iterator<UtteranceHypo
     double raw = Numbers.parseDecimal(value);
     if (Double.isNaN(raw)) throw new BadRows.RowProblem(col + " is '" + shown(value) + "'", "a finite decimal number such as -12.5 or 3e-4");
     if (Double.isInfinite(raw)) throw new BadRows.RowProblem(col + " is '" + shown(value) + "', which overflows", "a finite number");
+    String rule = spec.rawProblem(raw);
+    if (rule != null) throw new BadRows.RowProblem(col + " value '" + shown(value) + "' " + rule, "a value of 0 or more (0 counts as ln 1e-10)");
     double f = spec.toNaturalLog(raw);
     if (!Double.isFinite(f)) {
       throw new BadRows.RowProblem(col + " value '" + shown(value) + "' is out of range after conversion as " + spec,

@@ -21,7 +21,8 @@ public record ImportOptions(
 
   public ImportOptions {
     features = List.copyOf(features);
-    if (maxBadRows < 0) throw new IllegalArgumentException("maxBadRows must be >= 0: " + maxBadRows);
+    if (maxBadRows < 0)
+      throw InputException.option("--max-bad-rows", "is " + maxBadRows, "0 (any bad row fails) or the number of bad rows that may be skipped");
   }
 
   /** Strict import of the given features, warnings to stderr. */

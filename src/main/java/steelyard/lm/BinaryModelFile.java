@@ -1,19 +1,26 @@
 package steelyard.lm;
 
 import java.io.IOException;
+import java.io.InputStream;
 import java.nio.BufferUnderflowException;
 import java.nio.ByteBuffer;
 import java.nio.ByteOrder;
 import java.nio.channels.FileChannel;
+import java.nio.charset.CharacterCodingException;
+import java.nio.charset.CharsetDecoder;
+import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.nio.file.StandardOpenOption;
 import java.util.ArrayList;
+import java.util.HashSet;
 import java.util.List;
+import java.util.Set;
 import java.util.zip.CRC32C;
 import steelyard.io.AtomicOutput;
 import steelyard.io.InputException;
+import steelyard.io.InputFiles;
 
 /**
  * The project's binary model file: the arrays of a {@link CompactModel}, bulk-read in one go.
@@ -38,8 +45,9 @@ import steelyard.io.InputException;
  *   highest order: the word ids of all slots, then the probability bits of all slots)
  * </pre>
  * Reading checks magic, version, length and checksum before it looks at the payload, then checks the
- * structure (orders, lengths, child ranges, word ids), so a damaged file is an {@link InputException} naming
- * the file (no line) and never a crash. The metadata lines carry unit and normalisation ({@link ModelMetadata}).
+ * structure (orders, lengths, child ranges, word ids) and the values as the ARPA reader would (strict UTF-8
+ * tokens, each once; log10 probabilities ≤ 0; finite back-off weights; counts equal to the n-grams held), so a
+ * damaged or edited file is an {@link InputException} naming the file (no line) and never a crash. The metadata lines carry unit and normalisation ({@link ModelMetadata}).
  */
 public final class BinaryModelFile {
   static final byte[] MAGIC = {0x53, 0x59, 0x4C, 0x4D, 0x42, 0x49, 0x4E, 0x1A};
@@ -128,8 +136,8 @@ public final class BinaryModelFile {
     int flags = p.getInt();
     double floor = p.getDouble();
     if (!(floor <= 0) || Double.isInfinite(floor)) throw bad(file, "bad unknown-token floor " + floor);
-    List<String> meta = strings(file, p);
-    List<String> toks = strings(file, p);
+    List<String> meta = strings(file, p, "metadata line", false);
+    List<String> toks = strings(file, p, "vocabulary token", true);
     int[] counts = new int[order];
     for (int k = 0; k < order; k++) if ((counts[k] = p.getInt()) < 0) throw bad(file, "negative n-gram count");
     while ((p.position() & 3) != 0) p.get();
@@ -144,6 +152,7 @@ public final class BinaryModelFile {
     }
     if (p.hasRemaining()) throw bad(file, p.remaining() + " unexpected bytes after the last array");
     checkStructure(file, order, v, levels);
+    checkValues(file, order, levels, counts);
     CompactModel m = new CompactModel(order, meta, toks.toArray(new String[0]), levels, counts, floor, false);
     if (m.sentenceStartId() < 0 || m.sentenceEndId() < 0 || m.unknownId() < 0) throw bad(file, "vocabulary lacks <s>, </s> or <unk>");
     // The flag is re-derived rather than trusted: a wrong flag would silently change scores.
@@ -151,18 +160,60 @@ public final class BinaryModelFile {
     return new CompactModel(order, meta, m.tokens, levels, counts, floor, closed);
   }
 
-  private static List<String> strings(Path file, ByteBuffer p) {
+  private static List<String> strings(Path file, ByteBuffer p, String what, boolean tokens) {
     int n = p.getInt();
     if (n < 0 || n > p.remaining() / 4) throw bad(file, "string count " + n + " runs past the end");
     List<String> out = new ArrayList<>(n);
+    Set<String> seen = tokens ? new HashSet<>() : null;
+    CharsetDecoder utf8 = StandardCharsets.UTF_8.newDecoder()
+        .onMalformedInput(CodingErrorAction.REPORT).onUnmappableCharacter(CodingErrorAction.REPORT);
     for (int i = 0; i < n; i++) {
       int len = p.getInt();
       if (len < 0 || len > p.remaining()) throw bad(file, "string length " + len + " runs past the end");
       byte[] b = new byte[len];
       p.get(b);
-      out.add(new String(b, StandardCharsets.UTF_8));
+      String s;
+      try {
+        s = utf8.decode(ByteBuffer.wrap(b)).toString();
+      } catch (CharacterCodingException e) {
+        throw bad(file, what + " " + i + " is not valid UTF-8");
+      }
+      if (tokens && (s.isEmpty() || !seen.add(s)))
+        throw bad(file, what + " " + i + (s.isEmpty() ? " is empty" : " repeats an earlier token"));
+      out.add(s);
     }
     return out;
+  }
+
+  /**
+   * Refuses what the ARPA reader refuses, so that a file whose checksum was recomputed after an edit cannot
+   * smuggle it in: a log10 probability that is positive, infinite or NaN on a listed n-gram (NaN marks a
+   * context-only entry, which must have longer n-grams), a back-off weight that is not finite, and counts in
+   * the payload that disagree with the n-grams the arrays hold (so {@code lm describe} reports what is there).
+   */
+  private static void checkValues(Path file, int order, int[][] levels, int[] counts) {
+    for (int k = 0; k < order; k++) {
+      int[] a = levels[k];
+      boolean top = k == order - 1 && k > 0;
+      int slots = top ? a.length / 2 : a.length / 4 - 1;
+      int listed = 0;
+      for (int s = 0; s < slots; s++) {
+        if ((top ? a[s] : a[s * 4]) == CompactModel.EMPTY) continue;
+        float prob = Float.intBitsToFloat(top ? a[slots + s] : a[s * 4 + 1]);
+        boolean hasChildren = !top && k < order - 1 && a[s * 4 + 7] > a[s * 4 + 3];
+        if (Float.isNaN(prob) && !hasChildren)
+          throw bad(file, "an n-gram of order " + (k + 1) + " has no probability (NaN) and no longer n-grams");
+        if (!Float.isNaN(prob)) {
+          if (prob > 0 || Float.isInfinite(prob))
+            throw bad(file, "an n-gram of order " + (k + 1) + " has the log10 probability " + prob + " (positive or infinite)");
+          listed++;
+        }
+        if (!top && k < order - 1 && !Float.isFinite(Float.intBitsToFloat(a[s * 4 + 2])))
+          throw bad(file, "an n-gram of order " + (k + 1) + " has a back-off weight that is not a finite number");
+      }
+      if (listed != counts[k])
+        throw bad(file, "the payload counts " + counts[k] + " n-grams of order " + (k + 1) + " but its arrays hold " + listed);
+    }
   }
 
   /** Checks array lengths, monotone child ranges and word ids so that queries can never index out of bounds. */
@@ -192,6 +243,7 @@ public final class BinaryModelFile {
   }
 
   private static ByteBuffer readAll(Path file) {
+    if (InputFiles.isStream(file)) return readStream(file);
     try (FileChannel ch = FileChannel.open(file, StandardOpenOption.READ)) {
       long size = ch.size();
       if (size > Integer.MAX_VALUE - 64) throw bad(file, "file too large (" + size + " bytes)");
@@ -201,6 +253,24 @@ public final class BinaryModelFile {
       return b;
     } catch (NoSuchFileException e) {
       throw InputException.inFile(file, "no such file", "an existing model file").withCause(e);
+    } catch (IOException e) {
+      throw InputException.inFile(file, "cannot read (" + e.getMessage() + ")", "a readable model file").withCause(e);
+    }
+  }
+
+  /**
+   * A model arriving through a pipe or FIFO: read to its end with plain reads (a stream has no size, and the
+   * bulk-read shortcuts of {@link java.io.FileInputStream} ask for one: "Illegal seek").
+   */
+  private static ByteBuffer readStream(Path file) {
+    try (InputStream in = new java.io.FileInputStream(file.toFile())) {
+      java.io.ByteArrayOutputStream all = new java.io.ByteArrayOutputStream(1 << 16);
+      byte[] buf = new byte[1 << 16];
+      for (int n; (n = in.read(buf)) >= 0; ) {
+        all.write(buf, 0, n);
+        if (all.size() > Integer.MAX_VALUE - (1 << 20)) throw bad(file, "stream too large for a binary model");
+      }
+      return ByteBuffer.wrap(all.toByteArray()).order(ByteOrder.LITTLE_ENDIAN);
     } catch (IOException e) {
       throw InputException.inFile(file, "cannot read (" + e.getMessage() + ")", "a readable model file").withCause(e);
     }

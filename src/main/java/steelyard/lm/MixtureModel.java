@@ -10,8 +10,15 @@ import steelyard.text.Unit;
  * Exact linear interpolation of component models: P(w | h) = Σᵢ λᵢ·Pᵢ(w | h), every Pᵢ with its own
  * back-off. Scores are natural log, like every {@link LanguageModel}.
  *
- * <p>The vocabulary is the union of the components' vocabularies (first component's ids first, in order); a
- * token unknown to one component is scored there as that component's {@code <unk>}. A state keeps the last
+ * <p>The vocabulary is the union of the vocabularies of the components with a weight above 0 (first
+ * component's ids first, in order); a component with weight 0 takes no part at all, so weights 1, 0 give
+ * exactly the first model. A token outside one component's vocabulary gets probability 0 from that component
+ * (as history it counts as that component's {@code <unk>}), and the union's {@code <unk>} — every token outside
+ * the union — gets Σᵢ λᵢ·Pᵢ({@code <unk>} | h). So the mixture sums to 1 over its vocabulary in every context, as
+ * each component does over its own. (Scoring a token a component lacks as that component's {@code <unk>}
+ * would give every such token the whole {@code <unk>} mass again: the sum would exceed 1, the exact mixture's
+ * perplexity would be flattering, and its static approximation, which must renormalise, would score worse than
+ * its own components even at weights 1, 0.) A state keeps the last
  * (max order − 1) tokens; each query replays that history through every component, so a query costs
  * O(components · order) component queries — exact, not fast. For speed, write the static approximation
  * ({@link steelyard.lm.mix.StaticMixture}) and query that.
@@ -27,6 +34,8 @@ public final class MixtureModel implements LanguageModel {
   private final Object2IntOpenHashMap<String> ids = new Object2IntOpenHashMap<>();
   private final int[][] componentIds;
   private final ThreadLocal<LmState[]> scratch;
+  /** Marks a union token that a component does not know: probability 0 there, {@code <unk>} as history. */
+  private static final int ABSENT = -1;
 
   /** Mixes {@code components} with {@code weights} (non-negative, summing to 1 within 1e-9). */
   public MixtureModel(List<? extends LanguageModel> components, double[] weights) {
@@ -45,7 +54,9 @@ public final class MixtureModel implements LanguageModel {
     int maxOrder = 1;
     for (String special : new String[] {BackoffModel.SENTENCE_START, BackoffModel.SENTENCE_END, BackoffModel.UNKNOWN})
       intern(special);
-    for (LanguageModel c : this.components) {
+    for (int i = 0; i < this.components.size(); i++) {
+      if (weights[i] == 0) continue;
+      LanguageModel c = this.components.get(i);
       maxOrder = Math.max(maxOrder, c.order());
       for (int id = 0; id < c.vocabularySize(); id++) intern(c.token(id));
     }
@@ -54,7 +65,7 @@ public final class MixtureModel implements LanguageModel {
     for (int i = 0; i < componentIds.length; i++) {
       LanguageModel c = this.components.get(i);
       int[] map = new int[tokens.size()];
-      for (int u = 0; u < map.length; u++) map[u] = c.wordId(tokens.get(u));
+      for (int u = 0; u < map.length; u++) map[u] = idIn(c, tokens.get(u));
       componentIds[i] = map;
     }
     scratch = ThreadLocal.withInitial(() -> {
@@ -62,6 +73,12 @@ public final class MixtureModel implements LanguageModel {
       for (int i = 0; i < s.length; i++) s[i] = this.components.get(i).newState();
       return s;
     });
+  }
+
+  /** The component's id of {@code token}, or {@link #ABSENT} when the component does not know it. */
+  private static int idIn(LanguageModel c, String token) {
+    int id = c.wordId(token);
+    return id >= 0 && c.token(id).equals(token) ? id : ABSENT;
   }
 
   private void intern(String t) {
@@ -115,14 +132,16 @@ public final class MixtureModel implements LanguageModel {
     return Math.log(p);
   }
 
-  /** ln Pᵢ(word | history of {@code in}) of component {@code i}. */
+  /** ln Pᵢ(word | history of {@code in}) of component {@code i}; −∞ for a token outside its vocabulary. */
   public double componentLogProb(int i, LmState in, int word) {
     return componentLogProb(i, scratch.get()[i], in, word);
   }
 
   private double componentLogProb(int i, LmState s, LmState in, int word) {
+    int id = componentIds[i][word];
+    if (id == ABSENT) return Double.NEGATIVE_INFINITY;
     replay(i, s, in);
-    return components.get(i).score(s, componentIds[i][word], s);
+    return components.get(i).score(s, id, s);
   }
 
   /**
@@ -135,8 +154,10 @@ public final class MixtureModel implements LanguageModel {
     int best = 0;
     for (int i = 0; i < components.size(); i++) {
       if (weights[i] == 0) continue;
+      int id = componentIds[i][word];
+      if (id == ABSENT) continue; // outside this component's vocabulary: it lists nothing for the word
       replay(i, states[i], in);
-      best = Math.max(best, components.get(i).matchedOrder(states[i], componentIds[i][word]));
+      best = Math.max(best, components.get(i).matchedOrder(states[i], id));
     }
     return best;
   }
@@ -151,7 +172,7 @@ public final class MixtureModel implements LanguageModel {
     for (int j = skip; j < in.length; j++) {
       int h = in.history[j];
       if (h == sentenceStartId() && j == skip && j == 0) c.beginSentence(s);
-      else c.score(s, map[h], s);
+      else c.score(s, map[h] == ABSENT ? c.unknownId() : map[h], s);
     }
   }
 

@@ -4,6 +4,8 @@ import java.nio.file.Path;
 import java.util.Locale;
 import java.util.function.Consumer;
 import steelyard.io.InputException;
+import steelyard.io.InputFiles;
+import steelyard.io.OutputTarget;
 import steelyard.lm.arpa.ArpaReader;
 import steelyard.lm.arpa.ArpaWriter;
 
@@ -37,7 +39,8 @@ public final class ModelFiles {
     String name = file.getFileName() == null ? "" : file.getFileName().toString().toLowerCase(Locale.ROOT);
     if (name.endsWith(".arpa") || name.endsWith(".arpa.gz")) return Kind.ARPA;
     if (name.endsWith(".bin")) return Kind.BINARY;
-    throw InputException.option(file.toString(), "unknown model file type", "a name ending in .arpa, .arpa.gz or .bin");
+    String why = InputFiles.isStream(file) ? " (a pipe or standard input has no file name to tell the format by; save the model to a file)" : "";
+    throw InputException.option(file.toString(), "unknown model file type" + why, "a name ending in .arpa, .arpa.gz or .bin");
   }
 
   /** Loads a model for querying (the compact engine for large models). */
@@ -73,9 +76,29 @@ public final class ModelFiles {
     }
   }
 
-  /** Saves atomically, format chosen by the file name. */
+  /**
+   * The format a model is saved in: by the file name; ARPA text for {@code -} (standard output) and for a
+   * device, FIFO or descriptor whose name does not say ({@code /dev/null}, {@code /dev/fd/3}).
+   */
+  public static Kind outputKind(Path file) {
+    String name = file.getFileName() == null ? "" : file.getFileName().toString().toLowerCase(Locale.ROOT);
+    boolean named = name.endsWith(".arpa") || name.endsWith(".arpa.gz") || name.endsWith(".bin");
+    if (!named && (file.toString().equals("-") || OutputTarget.kind(file) != OutputTarget.Kind.REPLACE)) return Kind.ARPA;
+    return kind(file);
+  }
+
+  /**
+   * As {@link #save(BackoffModel, Path)}, but standard output ({@code -}, {@code /dev/stdout}) is {@code stdout}
+   * (a command's own output writer), which takes the ARPA text and is flushed, not closed.
+   */
+  public static void save(BackoffModel model, Path file, java.io.Writer stdout) {
+    if (OutputTarget.kind(file) == OutputTarget.Kind.STDOUT) ArpaWriter.write(model, file, stdout);
+    else save(model, file);
+  }
+
+  /** Saves atomically, format chosen by the file name ({@code -}: ARPA text on standard output). */
   public static void save(BackoffModel model, Path file) {
-    switch (kind(file)) {
+    switch (outputKind(file)) {
       case ARPA:
         ArpaWriter.write(model, file);
         return;

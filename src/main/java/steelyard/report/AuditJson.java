@@ -5,6 +5,7 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.nio.file.Path;
 import java.util.List;
 import steelyard.audit.AuditCounts;
+import steelyard.io.JsonOutput;
 import steelyard.audit.AuditReport;
 import steelyard.audit.DecisiveNgrams;
 import steelyard.audit.FlipWeights;

@@ -86,6 +86,10 @@ public final class HeldOutRun {
      * {@code STEM-test.picks.csv}, {@code STEM-test.breakdown.csv} and {@code STEM-test.summary.json} (as
      * {@code rescore --weights STEM.weights.json --refs} writes them for the test set).
      */
+    /** The endings of the files {@link #write} writes after its stem, in the order written. */
+    public static final List<String> FILES = List.of(".weights.json", "-dev.tune.json", "-test.picks.csv", "-test.breakdown.csv",
+        "-test.summary.json");
+
     public void write(Path dir, String stem, Writer stdout) {
       String weights = WeightsFile.toJson(tuning.weights());
       ObjectNode summary = TuneJson.json(tuning);

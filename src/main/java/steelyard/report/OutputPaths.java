@@ -1,42 +1,23 @@
 package steelyard.report;
 
-import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import steelyard.io.InputException;
+import steelyard.io.OutputSet;
+import steelyard.io.OutputTarget;
 
-/** Guards against an output overwriting one of the command's own inputs, or two outputs sharing a file. */
+/** Guards against an output overwriting one of the command's own inputs, or two outputs sharing a file ({@link OutputSet#refuseClashes}). */
 public final class OutputPaths {
   private OutputPaths() {}
 
   /**
-   * Throws an {@link InputException} naming the option when an output path (keyed by its option, null values
+   * Throws an {@link steelyard.io.InputException} naming the option when an output path (keyed by its option, null values
    * ignored) is an input path or another output's path, or when more than one output is {@code -} (stdout).
    */
   public static void refuseClashes(Map<String, Path> outputsByOption, List<Path> inputs) {
-    List<Map.Entry<String, Path>> seen = new ArrayList<>();
-    String stdoutTaken = null;
-    for (Map.Entry<String, Path> out : outputsByOption.entrySet()) {
-      Path p = out.getValue();
-      if (p != null && isStdout(p)) {
-        if (stdoutTaken != null)
-          throw InputException.option(out.getKey(), "standard output ('-') is already the output of " + stdoutTaken, "a file name");
-        stdoutTaken = out.getKey();
-      }
-      if (p == null || isStdout(p)) continue;
-      for (Path in : inputs) {
-        if (in != null && same(p, in))
-          throw InputException.option(out.getKey(), "output " + p + " is also an input file", "a different output path");
-      }
-      for (Map.Entry<String, Path> other : seen) {
-        if (same(p, other.getValue()))
-          throw InputException.option(out.getKey(), "output " + p + " is also the output of " + other.getKey(), "a different output path");
-      }
-      seen.add(out);
-    }
+    OutputSet.refuseClashes(outputsByOption, inputs);
   }
 
   /**
@@ -55,17 +36,8 @@ public final class OutputPaths {
     }
   }
 
-  /** Whether {@code p} is {@code -}, standard output. */
+  /** Whether {@code p} is standard output: {@code -}, or this process's {@code /dev/stdout} ({@link OutputTarget.Kind#STDOUT}). */
   public static boolean isStdout(Path p) {
-    return p != null && p.toString().equals("-");
-  }
-
-  private static boolean same(Path a, Path b) {
-    if (a.toAbsolutePath().normalize().equals(b.toAbsolutePath().normalize())) return true;
-    try {
-      return Files.exists(a) && Files.exists(b) && Files.isSameFile(a, b);
-    } catch (IOException e) {
-      return false;
-    }
+    return p != null && OutputTarget.kind(p) == OutputTarget.Kind.STDOUT;
   }
 }

@@ -62,6 +62,25 @@ public final class LogLinear {
     return t;
   }
 
+  /**
+   * The terms of hypothesis {@code i} written out for a message, e.g.
+   * {@code feature.acoustic 2 × 1e+308 = Infinity, lm_term 0 × -31.2 = 0, …}.
+   */
+  public String describeTerms(ScoredUtterance s, int i, List<String> featureNames) {
+    StringBuilder sb = new StringBuilder();
+    for (int f = 0; f < featureWeights.length; f++)
+      term(sb, "feature." + featureNames.get(f), featureWeights[f], s.feature(i, f));
+    term(sb, "lm_term", lmWeight, s.lmLogProb(i));
+    term(sb, "oov_term", oovWeight, s.oovCount(i));
+    term(sb, "length_term", lengthWeight, s.tokenCount(i));
+    return sb.toString();
+  }
+
+  private static void term(StringBuilder sb, String name, double weight, double value) {
+    if (sb.length() > 0) sb.append(", ");
+    sb.append(name).append(' ').append(weight).append(" × ").append(value).append(" = ").append(weight * value);
+  }
+
   /** Totals of every hypothesis into {@code out} (length ≥ size), which is returned. */
   public double[] totals(ScoredUtterance s, double[] out) {
     for (int i = 0, n = s.size(); i < n; i++) out[i] = total(s, i);

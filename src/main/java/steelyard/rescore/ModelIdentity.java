@@ -2,6 +2,7 @@ package steelyard.rescore;
 
 import java.nio.file.Path;
 import steelyard.io.FileDigest;
+import steelyard.io.InputFiles;
 
 /**
  * Which language model a set of weights was tuned with, so that applying them with another model can be
@@ -14,10 +15,16 @@ import steelyard.io.FileDigest;
  */
 public record ModelIdentity(String file, int order, long bytes, String sha256) {
 
-  /** Reads the model file once to compute its size and digest. */
+  /** Reads the model file once to compute its size and digest; a pipe is refused (it was read already). */
   public static ModelIdentity of(Path file, int order) {
+    InputFiles.requireRereadable(file, "the weights name the model by its size and SHA-256, which takes a second read");
     FileDigest d = FileDigest.of(file);
     return new ModelIdentity(file.getFileName().toString(), order, d.bytes(), d.sha256());
+  }
+
+  /** The file name with its size and digest, e.g. {@code dock.arpa (812345 bytes, SHA-256 9f2c…)}. */
+  public String describe() {
+    return file + " (" + bytes + " bytes, SHA-256 " + sha256 + ")";
   }
 
   /** Same model bytes (the file name may differ). */

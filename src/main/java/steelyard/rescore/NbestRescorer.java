@@ -3,6 +3,9 @@ package steelyard.rescore;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.function.Supplier;
+import steelyard.io.Hypothesis;
+import steelyard.io.InputException;
+import steelyard.io.Messages;
 import steelyard.io.UtteranceHypotheses;
 import steelyard.lattice.ConfusionNetwork;
 import steelyard.lattice.LatticeChoice;
@@ -74,6 +77,7 @@ public final class NbestRescorer {
         List<List<String>> toks = tokenLists(s);
         ConfusionNetwork net = Lattices.network(toks, post, weights.latticeSettings());
         LatticeChoice c = network(net, toks, post);
+        if (!Double.isFinite(c.score())) throw nonFinitePath(s, c);
         int chosen = c.sourceHypothesis();
         return result(s, totals, post, chosen, chosen < 0 ? c.tokens() : List.of(), null, c, net);
       }
@@ -88,9 +92,43 @@ public final class NbestRescorer {
    * that enters the confusion network.
    */
   public double[] posteriors(ScoredUtterance s, double[] totals) {
+    requireFinite(s, totals);
     double[] post = Posteriors.compute(s, totals, weights.posteriorScale(), systemWeights(s), new double[s.size()]);
     if (confidenceFeature >= 0 && method.usesNetwork()) Posteriors.weighByConfidence(s, post, confidenceFeature, post);
     return post;
+  }
+
+  /**
+   * Refuses a total that is not finite, or a total times the posterior scale beyond
+   * {@link Posteriors#MAX_SCALED_TOTAL}: finite weights and scores can still overflow, and an infinite or NaN
+   * total, or posteriors flattened by clamping, would make the choice arbitrary and leave empty cells.
+   */
+  private void requireFinite(ScoredUtterance s, double[] totals) {
+    double scale = weights.posteriorScale();
+    for (int i = 0; i < s.size(); i++) {
+      if (!Double.isFinite(totals[i])) {
+        throw nonFinite(s, i, "the total is " + totals[i] + " (" + weighting.describeTerms(s, i, featureNames) + ")");
+      }
+      if (!(Math.abs(scale * totals[i]) <= Posteriors.MAX_SCALED_TOTAL)) {
+        throw nonFinite(s, i, "the posterior scale " + scale + " × the total " + totals[i] + " = " + scale * totals[i]
+            + " is beyond ±" + Posteriors.MAX_SCALED_TOTAL + ", where posteriors can no longer be told apart");
+      }
+    }
+  }
+
+  private static InputException nonFinite(ScoredUtterance s, int i, String problem) {
+    Hypothesis h = s.hypothesis(i);
+    String who = "utterance '" + Messages.shown(s.uttId(), 40) + "', " + (h.system().isEmpty() ? "" : "system '" + Messages.shown(h.system(), 40) + "', ")
+        + "rank " + h.rank() + " (line " + h.line() + ")";
+    return InputException.option("weights", who + ": " + problem,
+        "weights and scores whose weighted sum stays finite (below 1.8e308 in magnitude): smaller weights or rescaled score columns");
+  }
+
+  private InputException nonFinitePath(ScoredUtterance s, LatticeChoice c) {
+    return InputException.option("weights", "utterance '" + Messages.shown(s.uttId(), 40) + "': the best path of the confusion network"
+        + " scores " + c.score() + " (Σ ln posterior " + c.logPosterior() + ", lattice LM weight " + weights.latticeLmWeight()
+        + " × ln P " + c.lmLogProb() + ", lattice length weight " + weights.latticeLengthWeight() + " × " + c.tokenCount() + " tokens)",
+        "lattice weights whose weighted sum stays finite (below 1.8e308 in magnitude)");
   }
 
   /** The confusion-network choice in {@code net}, built from the kept hypotheses with their (system-mixed) posteriors. */

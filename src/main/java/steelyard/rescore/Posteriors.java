@@ -7,6 +7,12 @@ package steelyard.rescore;
  * normalised over the systems present in the utterance: p(h) = w_s(h) · softmax_s(h).
  */
 public final class Posteriors {
+  /**
+   * Largest magnitude of α·total that is used as it is; beyond it values are clamped (so that a sum or
+   * difference of two cannot overflow), which makes them indistinguishable. Rescoring refuses such values.
+   */
+  public static final double MAX_SCALED_TOTAL = Double.MAX_VALUE / 4;
+
   private Posteriors() {}
 
   /** ln Σ exp(x[i]) over {@code x[0..n)}, stable for large magnitudes; −∞ for n = 0. */
@@ -70,8 +76,8 @@ public final class Posteriors {
 
   /** Keeps α·total finite so that an overflow cannot turn the softmax into NaN. */
   private static double clamp(double v) {
-    if (v > Double.MAX_VALUE / 4) return Double.MAX_VALUE / 4;
-    if (v < -Double.MAX_VALUE / 4 || Double.isNaN(v)) return -Double.MAX_VALUE / 4;
+    if (v > MAX_SCALED_TOTAL) return MAX_SCALED_TOTAL;
+    if (v < -MAX_SCALED_TOTAL || Double.isNaN(v)) return -MAX_SCALED_TOTAL;
     return v;
   }
 }

@@ -1,5 +1,6 @@
 package steelyard.rescore;
 
+import it.unimi.dsi.fastutil.objects.Object2IntOpenHashMap;
 import java.util.List;
 import steelyard.eval.Aligner;
 import steelyard.eval.EditCounts;
@@ -71,5 +72,46 @@ public final class ReferenceScorer {
     long n = 0;
     for (boolean o : ref.optional()) if (!o) n++;
     return new EditCounts(0, 0, n, 0);
+  }
+
+  /**
+   * Errors (S + D + I) of every kept hypothesis of {@code s} against {@code ref}, optional tokens free on both
+   * sides, as {@link #score} counts them. Uses its own token ids, never the lazily built ones of {@code s}, so it
+   * may run while other threads read {@code s} (a window choosing in the background).
+   */
+  public static int[] hypothesisErrors(ScoredUtterance s, TokenSequence ref, Aligner aligner) {
+    Object2IntOpenHashMap<String> vocabulary = new Object2IntOpenHashMap<>();
+    int[] refIds = localIds(ref.tokens(), vocabulary);
+    int[] out = new int[s.size()];
+    for (int i = 0; i < out.length; i++) {
+      TokenSequence h = s.tokens(i);
+      out[i] = (int) aligner.count(refIds, ref.optional(), localIds(h.tokens(), vocabulary), h.optional()).errors();
+    }
+    return out;
+  }
+
+  /** Errors of a new transcript's {@code tokens} (none optional) against {@code ref}, as {@link #score} counts them. */
+  public static int transcriptErrors(List<String> tokens, TokenSequence ref, Aligner aligner) {
+    Object2IntOpenHashMap<String> vocabulary = new Object2IntOpenHashMap<>();
+    int[] refIds = localIds(ref.tokens(), vocabulary);
+    return (int) aligner.count(refIds, ref.optional(), localIds(tokens, vocabulary), new boolean[tokens.size()]).errors();
+  }
+
+  /**
+   * Ids of {@code tokens} in {@code vocabulary}, a caller-owned map that grows with new tokens (ids 0, 1, …); for
+   * aligning token lists without touching an utterance's own lazily built ids.
+   */
+  public static int[] localIds(List<String> tokens, Object2IntOpenHashMap<String> vocabulary) {
+    int[] ids = new int[tokens.size()];
+    for (int k = 0; k < ids.length; k++) {
+      String t = tokens.get(k);
+      int id = vocabulary.getInt(t);
+      if (id == 0 && !vocabulary.containsKey(t)) {
+        id = vocabulary.size();
+        vocabulary.put(t, id);
+      }
+      ids[k] = id;
+    }
+    return ids;
   }
 }

@@ -7,10 +7,13 @@ import java.io.UncheckedIOException;
 import java.io.Writer;
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.HashSet;
 import java.util.List;
 import java.util.Map;
+import java.util.Set;
 import steelyard.eval.Bootstrap;
 import steelyard.eval.PairedComparison;
+import steelyard.eval.UtteranceOverlap;
 import steelyard.io.AtomicOutput;
 import steelyard.io.CsvWriter;
 import steelyard.io.JsonOutput;
@@ -41,7 +44,7 @@ public final class RescoreRun {
    * @param ci95        the bootstrap interval of the chosen error rate; null without references
    * @param versusFirst the paired test of the choice against rank 1; null without references
    * @param json        the JSON summary (also when it was not written)
-   * @param warnings    the session's warnings followed by the run's own (e.g. collapsed posteriors)
+   * @param warnings    the session's warnings, then the caller's, then the run's own (e.g. collapsed posteriors)
    */
   public record Result(RescoreSummary summary, Bootstrap.Interval ci95, PairedComparison versusFirst, ObjectNode json,
       List<String> warnings) {
@@ -63,16 +66,34 @@ public final class RescoreRun {
    */
   public static Result run(RescoreSession session, Path hyps, Path refs, Outputs outputs, int threads, long seed,
       List<SkippedRow> skipped, Writer stdout) {
+    return run(session, hyps, refs, outputs, threads, seed, skipped, stdout, List.of());
+  }
+
+  /**
+   * As {@link #run(RescoreSession, Path, Path, Outputs, int, long, List, Writer)}, with warnings the caller found
+   * in its own options ({@code callerWarnings}, already shown by the caller), listed in the JSON after the
+   * session's. Refuses a wrong answer before any output is complete: references that share no utterance id with
+   * the hypotheses ({@link UtteranceOverlap}; a small overlap is a warning) and a system weight of the
+   * configuration's upper layer naming a system absent from {@code hyps} are {@link steelyard.io.InputException}s.
+   */
+  public static Result run(RescoreSession session, Path hyps, Path refs, Outputs outputs, int threads, long seed,
+      List<SkippedRow> skipped, Writer stdout, List<String> callerWarnings) {
     Map<String, Reference> references = refs == null ? null : session.readReferences(refs);
     RescoreSummary[] summary = new RescoreSummary[1];
+    Set<String> systemsSeen = new HashSet<>();
     writeRows(session, outputs, stdout, sink -> {
       try {
-        summary[0] = session.run(hyps, references, threads, o -> sink.accept(o.result()));
+        summary[0] = session.run(hyps, references, threads, o -> {
+          systemsSeen.addAll(o.result().scores().systems());
+          sink.accept(o.result());
+        });
       } catch (UncheckedIOException e) {
         throw e.getCause();
       }
+      // Inside the writes: a refused run leaves the picks and breakdown unwritten.
+      refuseWrongAnswers(session, hyps, refs, references, summary[0], systemsSeen);
     });
-    return finish(session, summary[0], refs != null, outputs, threads, seed, skipped, stdout);
+    return finish(session, summary[0], refs != null, outputs, threads, seed, skipped, stdout, callerWarnings);
   }
 
   /**
@@ -88,7 +109,7 @@ public final class RescoreRun {
     writeRows(session, outputs, stdout, sink -> {
       for (UtteranceResult r : results) sink.accept(r);
     });
-    return finish(session, summary, withReferences, outputs, threads, seed, List.of(), stdout);
+    return finish(session, summary, withReferences, outputs, threads, seed, List.of(), stdout, List.of());
   }
 
   /** Receives rescored utterances in input order. */
@@ -122,8 +143,19 @@ public final class RescoreRun {
     }
   }
 
+  /** Files about different utterances, or a system weight for a system the file lacks: refused; a small overlap: a warning. */
+  private static void refuseWrongAnswers(RescoreSession session, Path hyps, Path refs, Map<String, Reference> references,
+      RescoreSummary summary, Set<String> systemsSeen) {
+    if (references != null) {
+      String overlap = UtteranceOverlap.check(hyps.toString(), refs, new ArrayList<>(references.keySet()),
+          summary.missingHypothesisIds(), summary.missingReferenceIds());
+      if (overlap != null) summary.warn(overlap);
+    }
+    RescoreWeights.requireSystemsPresent(session.config().overrides().systemWeights.keySet(), systemsSeen, hyps);
+  }
+
   private static Result finish(RescoreSession session, RescoreSummary summary, boolean withReferences, Outputs outputs,
-      int threads, long seed, List<SkippedRow> skipped, Writer stdout) {
+      int threads, long seed, List<SkippedRow> skipped, Writer stdout, List<String> callerWarnings) {
     Bootstrap.Interval ci = null;
     PairedComparison paired = null;
     if (withReferences) {
@@ -141,6 +173,7 @@ public final class RescoreRun {
       skipped.forEach(s -> rows.addObject().put("file", s.file()).put("line", s.line()).put("reason", s.reason()));
     }
     List<String> warnings = new ArrayList<>(session.warnings());
+    warnings.addAll(callerWarnings);
     warnings.addAll(summary.warnings());
     node.set("warnings", JsonOutput.strings(warnings));
     boolean identify = session.config().modelPath() != null && (outputs.saveWeights() != null || session.fileWeights().model != null);

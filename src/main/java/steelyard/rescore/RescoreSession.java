@@ -27,7 +27,8 @@ import steelyard.text.Unit;
  *       search's λ′ is not 0;</li>
  *   <li>settles the scoring unit (given, else the weights file's, else the model's, else words) and the two
  *       tokenisers: the scoring unit's (user normalisation) and the model's;</li>
- *   <li>collects warnings in {@link #warnings()} (weights tuned at another unit or with another model, a vote
+ *   <li>collects warnings in {@link #warnings()} (a scoring unit taken from the weights file or the model rather
+ *       than given, weights tuned at another unit or with another model (named by size and SHA-256), a vote
  *       confidence the method ignores, a model in another unit, model-loading warnings) without printing.</li>
  * </ul>
  * It then offers: {@link #score} (unweighted terms, LM included, computed once per utterance), {@link #choose}
@@ -113,6 +114,14 @@ public final class RescoreSession {
   public LogLinear weighting() { return rescorer.weighting(); }
   /** The underlying rescorer (what {@link #choose} calls). */
   public NbestRescorer rescorer() { return rescorer; }
+
+  /**
+   * Whether this session's weights and method use the model at all: λ or ω not 0, or λ′ not 0 with the lattice
+   * search. A model loaded for weights that are all 0 scores nothing (worth a warning where the user chose it).
+   */
+  public boolean usesModel() {
+    return SessionSetup.modelNeeded(weights(), method());
+  }
 
   /** The scoring normalisation in one line ({@link steelyard.text.Normaliser#describe()}), as a run history records it. */
   public String normalisationDescription() {

@@ -62,6 +62,7 @@ public final class RescoreSummary {
   private List<String> referenceOrder = List.of();
   private final List<String> missingHypotheses = new ArrayList<>();
   private final List<String> missingReferences = new ArrayList<>();
+  private final List<String> notes = new ArrayList<>();
 
   /** Adds one rescored utterance; {@code errors} is null when it has no reference (or none were given). */
   public void add(UtteranceResult r, UtteranceErrors errors) {
@@ -144,12 +145,20 @@ public final class RescoreSummary {
     return posteriorUtterances > 0 && 2 * collapsed > posteriorUtterances;
   }
 
-  /** Warnings about the run itself (collapsed posteriors), in a fixed order. */
+  /** Records a warning about the run found after it (e.g. few utterances shared with the references). */
+  public void warn(String warning) {
+    notes.add(warning);
+  }
+
+  /** Warnings about the run itself: those recorded by {@link #warn}, in order, then collapsed posteriors. */
   public List<String> warnings() {
-    if (!posteriorsCollapsed()) return List.of();
-    return List.of("posteriors are nearly all 0 or 1 (in " + collapsed + " of " + posteriorUtterances
-        + " utterances one hypothesis holds more than " + COLLAPSED_MASS
-        + " of its system's mass); tune α (the posterior sharpness), or pass --posterior-sharpness");
+    List<String> out = new ArrayList<>(notes);
+    if (posteriorsCollapsed()) {
+      out.add("posteriors are nearly all 0 or 1 (in " + collapsed + " of " + posteriorUtterances
+          + " utterances one hypothesis holds more than " + COLLAPSED_MASS
+          + " of its system's mass); tune α (the posterior sharpness), or pass --posterior-sharpness");
+    }
+    return List.copyOf(out);
   }
 
   /** The 95 % bootstrap interval of the chosen error rate over the scored utterances ({@link Bootstrap#corpusRate}). */

@@ -1,10 +1,16 @@
 package steelyard.rescore;
 
+import java.nio.file.Path;
+import java.util.Collection;
 import java.util.Collections;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Set;
 import java.util.TreeMap;
+import java.util.TreeSet;
+import steelyard.io.InputException;
+import steelyard.io.Messages;
 import steelyard.lattice.LatticeSettings;
 
 /**
@@ -76,6 +82,19 @@ public record RescoreWeights(
   /** Weight of a system before normalisation: its listed weight, else 1. */
   public double systemWeight(String system) {
     return systemWeights.getOrDefault(system, 1.0);
+  }
+
+  /**
+   * Refuses system names given a weight ({@code named}) that never occurred in the hypotheses file
+   * ({@code present}): a misspelt system would otherwise weigh nothing and change nothing, silently.
+   */
+  public static void requireSystemsPresent(Collection<String> named, Set<String> present, Path hypotheses) {
+    for (String name : named) {
+      if (present.contains(name)) continue;
+      boolean none = present.isEmpty() || present.equals(Set.of(""));
+      throw InputException.option("--system-weight", "system '" + Messages.shown(name, 40) + "' does not occur in " + hypotheses,
+          none ? "no --system-weight: the file has no system values" : "one of the systems present: " + Messages.shown(String.join(", ", new TreeSet<>(present)), 200));
+    }
   }
 
   /** The confusion-network settings of these weights. */

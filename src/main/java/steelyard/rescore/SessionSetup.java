@@ -56,10 +56,15 @@ final class SessionSetup {
       warn.add("--vote-confidence " + weights.voteConfidence() + " weighs only the consensus and lattice methods, not "
           + method.label());
     unit = c.unit() != null ? c.unit() : fileSpec.unit != null ? fileSpec.unit : model != null ? model.unit() : Unit.WORD;
+    if (c.unit() == null && unit != Unit.WORD)
+      warn.add("the scoring unit is " + unit.label() + ", taken from " + (fileSpec.unit != null ? "the weights in " + c.weightsFile()
+          : c.modelPath() != null ? "the model " + c.modelPath() : "the model") + " because --unit was not given: lengths, MBR and error rates ("
+          + (unit == Unit.CHAR ? "CER" : "WER") + ") count " + (unit == Unit.CHAR ? "characters" : "words"));
     if (fileSpec.unit != null && fileSpec.unit != unit)
       warn.add("the weights in " + c.weightsFile() + " were tuned at unit " + fileSpec.unit.label() + "; this run uses " + unit.label());
     if (fileSpec.model != null && c.modelPath() != null && model != null && !fileSpec.model.sameModel(modelIdentity()))
-      warn.add("the weights in " + c.weightsFile() + " were tuned with model " + fileSpec.model.file() + ", not " + c.modelPath());
+      warn.add("the weights in " + c.weightsFile() + " were tuned with model " + fileSpec.model.describe() + ", not " + c.modelPath()
+          + " " + modelIdentity().describe());
     Normaliser scoring = Normaliser.create(c.normalisation());
     normalisation = scoring.describe();
     Unit u = unit;

@@ -11,15 +11,13 @@ import java.io.Reader;
 import java.io.StringWriter;
 import java.io.UncheckedIOException;
 import java.io.Writer;
-import java.nio.charset.CharacterCodingException;
-import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.Collection;
 import java.util.Locale;
 import java.util.Map;
 import steelyard.io.AtomicOutput;
 import steelyard.io.InputException;
+import steelyard.io.InputFiles;
 import steelyard.io.JsonOutput;
 import steelyard.text.Unit;
 
@@ -59,6 +57,7 @@ public final class WeightsFile {
   private static final JsonFactory JSON = JsonFactory.builder()
       .disable(JsonFactory.Feature.INTERN_FIELD_NAMES)
       .build()
+      .enable(JsonParser.Feature.STRICT_DUPLICATE_DETECTION)
       .disable(JsonGenerator.Feature.AUTO_CLOSE_TARGET);
 
   private WeightsFile() {}
@@ -69,25 +68,24 @@ public final class WeightsFile {
    * features from the file).
    */
   public static WeightsSpec read(Path file, Collection<String> knownFeatures) {
-    try (Reader in = Files.newBufferedReader(file)) {
+    // Read like every other input: strict UTF-8 with its line and column, a leading BOM dropped, .gz, '-'.
+    try (Reader in = InputFiles.open(file)) {
       return read(file, in, knownFeatures);
-    } catch (NoSuchFileException e) {
-      throw InputException.inFile(file, "file not found", "an existing weights file");
-    } catch (CharacterCodingException e) {
-      throw InputException.inFile(file, "not valid UTF-8", "a UTF-8 JSON weights file").withCause(e);
     } catch (IOException e) {
       throw InputException.inFile(file, "cannot read (" + e.getMessage() + ")", "a readable weights file").withCause(e);
     }
   }
 
-  /** Reads weights from {@code in}; {@code file} names it in messages. */
+  /**
+   * Reads weights from {@code in}; {@code file} names it in messages. A key given twice in one object and a
+   * string holding a lone UTF-16 surrogate (from a <code>&#92;uD800</code> escape) are refused; messages about
+   * malformed JSON are in the project's words, without the parser's internals.
+   */
   public static WeightsSpec read(Path file, Reader in, Collection<String> knownFeatures) throws IOException {
     try (JsonParser p = JSON.createParser(in)) {
       return new WeightsParser(file, p, knownFeatures).document();
     } catch (JsonProcessingException e) {
-      JsonLocation loc = e.getLocation();
-      String msg = e.getOriginalMessage().split("\n", 2)[0];
-      throw at(file, loc, "not valid JSON (" + msg + ")", "a JSON weights file").withCause(e);
+      throw at(file, e.getLocation(), JsonProblems.describe(e), JsonProblems.expected(e)).withCause(e);
     }
   }
 

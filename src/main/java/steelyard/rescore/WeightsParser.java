@@ -7,11 +7,13 @@ import java.io.IOException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Collection;
+import java.util.Locale;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
 import java.util.TreeSet;
 import steelyard.io.InputException;
+import steelyard.io.Messages;
 
 /**
  * Streaming reader of the weights-file schema (see {@link WeightsFile}); streaming rather than a tree so that
@@ -317,7 +319,17 @@ final class WeightsParser {
     JsonToken t = p.nextToken();
     if (t == JsonToken.END_OBJECT) return false;
     if (t != JsonToken.FIELD_NAME) throw fail("unexpected " + t, "a field name");
+    validUnicode(p.currentName(), "key");
     return true;
+  }
+
+  /** A lone surrogate (a <code>&#92;uD800</code> escape) is no character: no file, report or message could hold it. */
+  private void validUnicode(String s, String what) {
+    int i = Messages.loneSurrogate(s);
+    if (i >= 0) {
+      throw fail(what + " '" + Messages.shown(s, 40) + "' contains a lone UTF-16 surrogate (\\u"
+          + String.format(Locale.ROOT, "%04X", (int) s.charAt(i)) + ") that is not a character", "text of valid Unicode characters");
+    }
   }
 
   private void expect(JsonToken type, String what) {
@@ -326,6 +338,7 @@ final class WeightsParser {
 
   private String string() throws IOException {
     if (p.currentToken() != JsonToken.VALUE_STRING) throw fail("'" + p.currentName() + "' is " + describe(), "a string");
+    validUnicode(p.getText(), "value");
     return p.getText();
   }
 

@@ -1,7 +1,5 @@
 package steelyard.text;
 
-import java.io.IOException;
-import java.io.InputStream;
 import java.nio.ByteBuffer;
 import java.nio.CharBuffer;
 import java.nio.charset.CharacterCodingException;
@@ -9,13 +7,11 @@ import java.nio.charset.CharsetDecoder;
 import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.zip.GZIPInputStream;
-import java.util.zip.ZipException;
 import steelyard.io.InputException;
+import steelyard.io.InputFiles;
 
 /**
  * Reader of the line-based rules file (format in the README, section "Text normalisation").
@@ -178,19 +174,13 @@ public final class RulesFile {
   }
 
   private static byte[] readBytes(Path file) {
-    try (InputStream raw = Files.newInputStream(file)) {
-      boolean gz = file.getFileName() != null && file.getFileName().toString().endsWith(".gz");
-      if (!gz) return raw.readAllBytes();
-      try (InputStream in = new GZIPInputStream(raw)) {
-        return in.readAllBytes();
-      }
-    } catch (NoSuchFileException e) {
-      throw InputException.inFile(file, "no such rules file", "an existing readable file").withCause(e);
-    } catch (ZipException e) {
-      throw InputException.inFile(file, "not a valid gzip file", "gzip data in a file named .gz").withCause(e);
-    } catch (IOException e) {
-      throw InputException.inFile(file, "cannot read rules file (" + e.getMessage() + ")", "a readable file")
-          .withCause(e);
+    if (!InputFiles.isStream(file) && !Files.exists(file)) throw InputException.inFile(file, "no such rules file", "an existing readable file");
+    try {
+      return InputFiles.readAllBytes(file);
+    } catch (InputException e) {
+      if (!InputFiles.isGzipName(file)) throw e;
+      throw InputException.inFile(file, "not a valid gzip file: " + e.problem(), "gzip data in a file named .gz").withCause(e);
     }
   }
+
 }

@@ -7,7 +7,8 @@ import java.util.TreeMap;
 import steelyard.rescore.RescoreMethod;
 
 /**
- * How a tuning run searches. Immutable; {@link #defaults()} and the {@code with…} methods make new instances.
+ * How a tuning run searches. Immutable; made by {@link #defaults()} or a {@link #builder()}; the {@code with…}
+ * methods return changed copies.
  *
  * @param methods           methods to tune (empty: all four, keeping the one with the lowest cross-validated error)
  * @param tune              names of the weights that move ({@link WeightNames}); null: the default set, i.e. every
@@ -61,47 +62,117 @@ public record TuneSettings(
    * 10-best searches for the pools, at most 8 pool rounds, an outer sample of 1000 utterances, a surface.
    */
   public static TuneSettings defaults() {
-    return new TuneSettings(Set.of(), null, Map.of(), DEFAULT_FOLDS, DEFAULT_SEED, 1, 5, 3, 30, 10, 8, DEFAULT_OUTER_SAMPLE, true);
+    return builder().build();
+  }
+
+  /** A builder starting from {@link #defaults()}. */
+  public static Builder builder() {
+    return new Builder();
+  }
+
+  /** A builder starting from these settings. */
+  public Builder toBuilder() {
+    Builder b = new Builder();
+    b.methods = methods;
+    b.tune = tune;
+    b.ranges = ranges;
+    b.folds = folds;
+    b.seed = seed;
+    b.threads = threads;
+    b.restarts = restarts;
+    b.randomDirections = randomDirections;
+    b.maxPasses = maxPasses;
+    b.kBest = kBest;
+    b.maxPoolIterations = maxPoolIterations;
+    b.outerSample = outerSample;
+    b.surface = surface;
+    return b;
+  }
+
+  /** Builds {@link TuneSettings}; each setter returns the builder. */
+  public static final class Builder {
+    private Set<RescoreMethod> methods = Set.of();
+    private Set<String> tune;
+    private Map<String, WeightRange> ranges = Map.of();
+    private int folds = DEFAULT_FOLDS;
+    private long seed = DEFAULT_SEED;
+    private int threads = 1;
+    private int restarts = 5;
+    private int randomDirections = 3;
+    private int maxPasses = 30;
+    private int kBest = 10;
+    private int maxPoolIterations = 8;
+    private int outerSample = DEFAULT_OUTER_SAMPLE;
+    private boolean surface = true;
+
+    private Builder() {}
+
+    public Builder methods(Set<RescoreMethod> m) { methods = m; return this; }
+    public Builder tune(Set<String> names) { tune = names; return this; }
+    public Builder ranges(Map<String, WeightRange> r) { ranges = r; return this; }
+    public Builder folds(int k) { folds = k; return this; }
+    public Builder seed(long s) { seed = s; return this; }
+    public Builder threads(int t) { threads = t; return this; }
+    /** Restarts, random directions per pass without progress, and the cap on passes of one run. */
+    public Builder search(int restarts, int randomDirections, int maxPasses) {
+      this.restarts = restarts;
+      this.randomDirections = randomDirections;
+      this.maxPasses = maxPasses;
+      return this;
+    }
+    /** Paths per search added to the lattice pools, and the cap on pool rounds per posterior scale. */
+    public Builder pools(int kBest, int maxPoolIterations) {
+      this.kBest = kBest;
+      this.maxPoolIterations = maxPoolIterations;
+      return this;
+    }
+    public Builder outerSample(int n) { outerSample = n; return this; }
+    public Builder surface(boolean s) { surface = s; return this; }
+
+    public TuneSettings build() {
+      return new TuneSettings(methods, tune, ranges, folds, seed, threads, restarts, randomDirections, maxPasses, kBest,
+          maxPoolIterations, outerSample, surface);
+    }
   }
 
   public TuneSettings withMethods(Set<RescoreMethod> m) {
-    return new TuneSettings(m, tune, ranges, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, outerSample, surface);
+    return toBuilder().methods(m).build();
   }
 
-  public TuneSettings withTune(Set<String> t) {
-    return new TuneSettings(methods, t, ranges, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, outerSample, surface);
+  public TuneSettings withTune(Set<String> names) {
+    return toBuilder().tune(names).build();
   }
 
   public TuneSettings withRanges(Map<String, WeightRange> r) {
-    return new TuneSettings(methods, tune, r, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, outerSample, surface);
+    return toBuilder().ranges(r).build();
   }
 
-  public TuneSettings withFolds(int f) {
-    return new TuneSettings(methods, tune, ranges, f, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, outerSample, surface);
+  public TuneSettings withFolds(int k) {
+    return toBuilder().folds(k).build();
   }
 
   public TuneSettings withSeed(long s) {
-    return new TuneSettings(methods, tune, ranges, folds, s, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, outerSample, surface);
+    return toBuilder().seed(s).build();
   }
 
   public TuneSettings withThreads(int t) {
-    return new TuneSettings(methods, tune, ranges, folds, seed, t, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, outerSample, surface);
+    return toBuilder().threads(t).build();
   }
 
   public TuneSettings withSearch(int restarts, int randomDirections, int maxPasses) {
-    return new TuneSettings(methods, tune, ranges, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, outerSample, surface);
+    return toBuilder().search(restarts, randomDirections, maxPasses).build();
   }
 
   public TuneSettings withPools(int kBest, int maxPoolIterations) {
-    return new TuneSettings(methods, tune, ranges, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, outerSample, surface);
+    return toBuilder().pools(kBest, maxPoolIterations).build();
   }
 
   public TuneSettings withOuterSample(int n) {
-    return new TuneSettings(methods, tune, ranges, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, n, surface);
+    return toBuilder().outerSample(n).build();
   }
 
   public TuneSettings withSurface(boolean s) {
-    return new TuneSettings(methods, tune, ranges, folds, seed, threads, restarts, randomDirections, maxPasses, kBest, maxPoolIterations, outerSample, s);
+    return toBuilder().surface(s).build();
   }
 
   /** The allowed range of {@code name}: the override when given, else the default. */

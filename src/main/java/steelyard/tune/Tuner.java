@@ -28,7 +28,7 @@ import steelyard.rescore.RescoreMethod;
  * inputs and the seed.
  *
  * <pre>{@code
- * TuneResult r = Tuner.tune(TuneInput.of(dev, features, model, start), TuneSettings.defaults().withThreads(2),
+ * TuneResult r = Tuner.tune(TuneInput.of(dev, features, model, start), TuneSettings.builder().threads(2).build(),
  *     (done, what) -> bar.update(done, what), () -> cancelled.get());
  * }</pre>
  */

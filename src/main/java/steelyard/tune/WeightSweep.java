@@ -101,7 +101,7 @@ public final class WeightSweep {
 
   private CandidateTable pools(RescoreWeights at, int kBest, double[][] points, Workers w) {
     if (input.model() == null && at.latticeLmWeight() != 0) throw new IllegalArgumentException("λ′ needs a model");
-    TuneSettings s = TuneSettings.defaults().withPools(kBest, 1);
+    TuneSettings s = TuneSettings.builder().pools(kBest, 1).build();
     return new LatticeRound(new NetworkData(input, table), s, w).gather(at, table.all(), points);
   }
 

@@ -38,14 +38,14 @@ public final class TuneBench {
     System.out.printf(Locale.ROOT, "data: %d utterances x %d hypotheses, scored in %.1f s; %d threads%n", utts, hyps, secs(t), threads);
     if (parts.contains("line")) lineSearch(in, threads);
     if (parts.contains("nbest")) {
-      TuneSettings s = TuneSettings.defaults().withMethods(Set.of(RescoreMethod.NBEST)).withThreads(threads)
-          .withTune(Set.of("lm", WeightNames.LM, WeightNames.LENGTH)).withSurface(false);
-      tune("N-best, 3 weights, 5 restarts, no folds", in, s.withFolds(0));
+      TuneSettings s = TuneSettings.builder().methods(Set.of(RescoreMethod.NBEST)).threads(threads)
+          .tune(Set.of("lm", WeightNames.LM, WeightNames.LENGTH)).surface(false).build();
+      tune("N-best, 3 weights, 5 restarts, no folds", in, s.toBuilder().folds(0).build());
       tune("N-best, 3 weights, 5 restarts, 5 folds", in, s);
     }
     if (parts.contains("lattice")) {
-      TuneSettings s = TuneSettings.defaults().withMethods(Set.of(RescoreMethod.LATTICE)).withThreads(threads).withSurface(false);
-      tune("lattice, no folds", in, s.withFolds(0));
+      TuneSettings s = TuneSettings.builder().methods(Set.of(RescoreMethod.LATTICE)).threads(threads).surface(false).build();
+      tune("lattice, no folds", in, s.toBuilder().folds(0).build());
       tune("lattice, 5 folds", in, s);
     }
   }
@@ -77,7 +77,8 @@ public final class TuneBench {
     double took = secs(t);
     double cpu = (cpu() - c) / 1e9;
     MethodFigures f = r.figures(r.method());
-    System.out.printf(Locale.ROOT, "%s: %.1f s wall, %.1f s process CPU; rank 1 %.2f %%, tuned %.2f %%, CV %.2f %%, %d iterations; weights %s%n", what, took, cpu,
+    System.out.printf(Locale.ROOT,
+        "%s: %.1f s wall, %.1f s process CPU; rank 1 %.2f %%, tuned %.2f %%, CV %.2f %%, %d iterations; weights %s%n", what, took, cpu,
         100 * r.devFirstErrorRate(), 100 * f.devErrorRate(), 100 * f.cvErrorRate(), f.iterations(), f.weights());
   }
 

@@ -178,9 +178,12 @@ class ScoreCommandTest {
       assertThat(json(gray).get("substitutions").asLong()).isEqualTo(1);
       assertThat(json(gray).get("hypotheses_file").asText()).endsWith("system=gray");
       assertThat(json(deskew).get("substitutions").asLong()).isEqualTo(1);
+      // A system that never occurs is refused (every utterance would count as missing), naming those present.
       Path none = dir.resolve("none.json");
-      assertThat(run("score", "--hyps", h.toString(), "--refs", r.toString(), "--system", "upscale", "--json", none.toString()).code()).isZero();
-      assertThat(json(none).get("missing_hypotheses").asInt()).isEqualTo(2);
+      Result absent = run("score", "--hyps", h.toString(), "--refs", r.toString(), "--system", "upscale", "--json", none.toString());
+      assertThat(absent.code()).isEqualTo(2);
+      assertThat(absent.err()).contains("system 'upscale' does not occur").contains("deskew, gray");
+      assertThat(none).doesNotExist();
     }
 
     @Test

@@ -15,6 +15,8 @@ import java.util.List;
 import java.util.concurrent.TimeUnit;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.ValueSource;
 import org.junit.jupiter.api.io.TempDir;
 
 class AtomicOutputTest {
@@ -115,6 +117,37 @@ class AtomicOutputTest {
     assertThat(closed[0]).isFalse();
   }
 
+  @ParameterizedTest
+  @ValueSource(strings = {"-", "/dev/stdout", "/dev/fd/1"})
+  void standardOutputGoesToTheCommandsOwnWriterWhichStaysOpen(String name) {
+    java.io.StringWriter sw = new java.io.StringWriter();
+    boolean[] closed = {false};
+    java.io.PrintWriter commandOut = new java.io.PrintWriter(sw) {
+      @Override
+      public void close() {
+        closed[0] = true;
+      }
+    };
+    AtomicOutput.writeText(Path.of(name), commandOut, w -> {
+      w.write("to the command's stdout\n");
+      w.close();
+    });
+    assertThat(sw.toString()).isEqualTo("to the command's stdout\n");
+    assertThat(closed[0]).isFalse();
+  }
+
+  @Test
+  void aFailingCommandWriterIsAnInputErrorNotASilentLoss() {
+    java.io.PrintWriter broken = new java.io.PrintWriter(java.io.Writer.nullWriter()) {
+      @Override
+      public boolean checkError() {
+        return true;
+      }
+    };
+    assertThatThrownBy(() -> AtomicOutput.writeText(Path.of("-"), broken, w -> w.write("lost\n")))
+        .isInstanceOf(InputException.class).hasMessageContaining("cannot write to standard output");
+  }
+
   @Test
   void missingDirectoryIsAnInputError() {
     Path target = dir.resolve("no/such/dir/out.csv");
@@ -139,7 +172,7 @@ class AtomicOutputTest {
   }
 
   @Test
-  void killedWriteKeepsTheOldOutputAndTheNextRunLeavesNoTemporaryFileOfItsOwn() throws Exception {
+  void killedWriteKeepsTheOldOutputAndTheNextRunRemovesItsLeftover() throws Exception {
     Path target = dir.resolve("picks.csv");
     Files.writeString(target, "old output\n");
     Process child = startChild(target, 100_000, "-D" + AtomicOutput.PAUSE_PROPERTY + "=5000");
@@ -159,8 +192,9 @@ class AtomicOutputTest {
     assertThat(rerun.waitFor(60, TimeUnit.SECONDS)).isTrue();
     assertThat(rerun.exitValue()).as(err).isZero();
     assertThat(Files.readAllLines(target)).hasSize(10).first().isEqualTo("new line 0 crates to bay 0");
-    assertThat(err).contains(leftover.get(0) + " is left over from an interrupted write; it is not deleted automatically");
-    assertThat(temporaryFiles()).as("only the killed run's file, which may be the user's to inspect").isEqualTo(leftover);
+    assertThat(err).as("the rerun names what it removed")
+        .contains("removed " + leftover.get(0) + ", left over from an interrupted write (process ");
+    assertThat(temporaryFiles()).as("the killed run's temporary file is gone, and the rerun left none").isEmpty();
   }
 
   private static Process startChild(Path target, int lines, String property) throws IOException {

@@ -1,6 +1,7 @@
 package steelyard.reliability;
 
 import static org.assertj.core.api.Assertions.assertThat;
+import static org.junit.jupiter.api.Assumptions.assumeTrue;
 
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -9,6 +10,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.concurrent.TimeUnit;
 import java.util.stream.Stream;
+import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.Arguments;
@@ -18,7 +20,9 @@ import org.junit.jupiter.params.provider.MethodSource;
  * A command writes only the paths the user gives (plus temporary files beside them, gone afterwards): run in
  * a child JVM whose {@code java.io.tmpdir}, {@code user.home} and working directory are fresh empty
  * directories that must stay empty; the inputs are unchanged, the output directory holds exactly the named
- * outputs, and the parent directory's entries (names and modification times) are as before.
+ * outputs, and the parent directory's entries (names and modification times) are as before. The JVM itself
+ * keeps a performance-data file in {@code /tmp/hsperfdata_USER/} unless told not to: the launcher passes
+ * {@code -XX:-UsePerfData}, checked here against a child JVM paused mid-run.
  */
 class StrayWritesTest {
   static Stream<Arguments> commands() {
@@ -67,6 +71,50 @@ class StrayWritesTest {
     parentAfter.remove("out");
     assertThat(parentAfter).as("parent directory entries unchanged").isEqualTo(parentBefore);
     deleteTree(logs);
+  }
+
+  @Test
+  void theLauncherStopsTheJvmFromKeepingPerformanceDataInTmp(@TempDir Path dir) throws Exception {
+    List<String> options = launcherJvmOptions();
+    assertThat(options).as("JVM options in the launcher ./steelyard").contains("-XX:-UsePerfData");
+    Path perfDir = Path.of("/tmp", "hsperfdata_" + System.getProperty("user.name"));
+    assumeTrue(Files.isDirectory(Path.of("/tmp")), "HotSpot keeps performance data under /tmp on Linux only");
+    // Control: without the option the JVM does write there, so the check below can fail.
+    assumeTrue(perfFileExistsWhileRunning(List.of(), perfDir, dir.resolve("a")), "this JVM keeps no performance data file anyway");
+    assertThat(perfFileExistsWhileRunning(options, perfDir, dir.resolve("b"))).as("performance data file with the launcher's options").isFalse();
+  }
+
+  /** The JVM options of the launcher's {@code exec java … -jar} line. */
+  private static List<String> launcherJvmOptions() throws java.io.IOException {
+    for (String line : Files.readAllLines(Path.of("steelyard"))) {
+      String t = line.strip();
+      if (!t.startsWith("exec java ")) continue;
+      List<String> out = new ArrayList<>();
+      for (String w : t.split("\\s+")) if (w.startsWith("-XX:") || w.startsWith("-D")) out.add(w);
+      return out;
+    }
+    throw new AssertionError("no 'exec java' line in ./steelyard");
+  }
+
+  /** Starts a command paused mid-write with {@code options}; whether /tmp/hsperfdata_USER/PID exists meanwhile. */
+  private static boolean perfFileExistsWhileRunning(List<String> options, Path perfDir, Path dir) throws Exception {
+    Files.createDirectories(dir);
+    List<String> jvm = new ArrayList<>(options);
+    jvm.add("-D" + steelyard.io.AtomicOutput.PAUSE_PROPERTY + "=10");
+    Path err = dir.resolve("err.txt");
+    Process p = Cli.start(jvm, dir.resolve("out.txt"), err, "rescore", "--hyps", Fixtures.valid("hyps.csv").toString(),
+        "--features", "acoustic", "--out", dir.resolve("picks.csv").toString());
+    try {
+      long deadline = System.nanoTime() + 60_000_000_000L;
+      while (!Files.readString(err).contains("test pause")) {
+        assertThat(p.isAlive()).as("child paused; stderr: %s", Files.readString(err)).isTrue();
+        assertThat(System.nanoTime()).as("child paused within 60 s").isLessThan(deadline);
+        Thread.sleep(20);
+      }
+      return Files.exists(perfDir.resolve(Long.toString(p.pid())));
+    } finally {
+      p.destroyForcibly().waitFor();
+    }
   }
 
   private static void deleteTree(Path p) throws java.io.IOException {

@@ -79,7 +79,7 @@ class RealisticTuneTest {
   @Test
   void latticeTunerReachesAtLeastTheBestPointOfAPlainGridOverTheSameParameters() {
     assumeTrue(input != null, "realistic fixtures not found (../shared/realistic/asr); skipped");
-    TuneSettings settings = TuneSettings.defaults().withMethods(Set.of(RescoreMethod.LATTICE)).withThreads(2);
+    TuneSettings settings = TuneSettings.builder().methods(Set.of(RescoreMethod.LATTICE)).threads(2).build();
     TuneResult r = Tuner.tune(input, settings, TuneProgress.NONE, () -> false);
     MethodFigures f = r.figures(RescoreMethod.LATTICE);
     RescoreWeights w = f.weights();

@@ -26,8 +26,9 @@ class TunerTest {
     return TuneInput.of(d.dev(), ACOUSTIC, d.model(), DevSets.weights(ACOUSTIC, 1));
   }
 
-  private static TuneSettings fast() {
-    return TuneSettings.defaults().withFolds(3).withSearch(2, 2, 20).withPools(5, 4);
+  /** Fewer restarts, passes and pool rounds than the defaults: the invariants hold for any effort. */
+  private static TuneSettings.Builder fast() {
+    return TuneSettings.builder().folds(3).search(2, 2, 20).pools(5, 4);
   }
 
   /** Invariant: tuned weights are kept only when they beat the start on the dev set (never worse). */
@@ -35,7 +36,7 @@ class TunerTest {
   @ValueSource(longs = {1, 2, 3, 4, 5, 6, 7, 8})
   void tunedWeightsNeverMakeDevErrorWorseThanTheStart(long seed) {
     TuneInput in = input(seed, 40);
-    TuneResult r = Tuner.tune(in, fast(), TuneProgress.NONE, () -> false);
+    TuneResult r = Tuner.tune(in, fast().build(), TuneProgress.NONE, () -> false);
     for (MethodFigures f : r.perMethod()) {
       long start = DevErrors.score(in, in.start(), f.method(), 1).errors();
       assertThat(f.devErrors()).as("seed %d %s", seed, f.method()).isLessThanOrEqualTo(start);
@@ -47,7 +48,7 @@ class TunerTest {
   @Test
   void nbestTuningFromABadStartFindsFewerErrorsAndReportsExactIntervalsAroundTheTunedWeights() {
     TuneInput in = input(11, 60);
-    TuneResult r = Tuner.tune(in, fast().withMethods(Set.of(RescoreMethod.NBEST)), TuneProgress.NONE, () -> false);
+    TuneResult r = Tuner.tune(in, fast().methods(Set.of(RescoreMethod.NBEST)).build(), TuneProgress.NONE, () -> false);
     MethodFigures f = r.figures(RescoreMethod.NBEST);
     assertThat(f.devErrors()).isLessThan(f.startErrors());
     assertThat(f.bestInterval()).containsOnlyKeys(WeightNames.LM, WeightNames.LENGTH);
@@ -61,8 +62,8 @@ class TunerTest {
   @Test
   void resultsAreIdenticalForAnyThreadCount() {
     TuneInput in = input(5, 300);
-    TuneResult one = Tuner.tune(in, fast(), TuneProgress.NONE, () -> false);
-    TuneResult three = Tuner.tune(in, fast().withThreads(3), TuneProgress.NONE, () -> false);
+    TuneResult one = Tuner.tune(in, fast().build(), TuneProgress.NONE, () -> false);
+    TuneResult three = Tuner.tune(in, fast().threads(3).build(), TuneProgress.NONE, () -> false);
     assertThat(three.weights()).isEqualTo(one.weights());
     assertThat(three.method()).isEqualTo(one.method());
     for (RescoreMethod m : RescoreMethod.values()) {
@@ -76,9 +77,9 @@ class TunerTest {
   @Test
   void latticeTuningOnASampleIsNeverWorseThanTheStartAndTheSameForAnyThreadCount() {
     TuneInput in = input(12, 90);
-    TuneSettings s = fast().withMethods(Set.of(RescoreMethod.LATTICE)).withOuterSample(30);
+    TuneSettings s = fast().methods(Set.of(RescoreMethod.LATTICE)).outerSample(30).build();
     TuneResult one = Tuner.tune(in, s, TuneProgress.NONE, () -> false);
-    TuneResult two = Tuner.tune(in, s.withThreads(2), TuneProgress.NONE, () -> false);
+    TuneResult two = Tuner.tune(in, s.toBuilder().threads(2).build(), TuneProgress.NONE, () -> false);
     MethodFigures f = one.figures(RescoreMethod.LATTICE);
     assertThat(f.devErrors()).isLessThanOrEqualTo(DevErrors.score(in, in.start(), RescoreMethod.LATTICE, 1).errors());
     assertThat(DevErrors.score(in, f.weights(), RescoreMethod.LATTICE, 1).errors()).isEqualTo(f.devErrors());
@@ -89,8 +90,8 @@ class TunerTest {
   @Test
   void onlyTheListedWeightsMove() {
     TuneInput in = input(3, 40);
-    TuneResult r = Tuner.tune(in, fast().withMethods(EnumSet.of(RescoreMethod.NBEST, RescoreMethod.CONSENSUS))
-        .withTune(Set.of(WeightNames.LENGTH)), TuneProgress.NONE, () -> false);
+    TuneResult r = Tuner.tune(in, fast().methods(EnumSet.of(RescoreMethod.NBEST, RescoreMethod.CONSENSUS))
+        .tune(Set.of(WeightNames.LENGTH)).build(), TuneProgress.NONE, () -> false);
     for (MethodFigures f : r.perMethod()) {
       RescoreWeights w = f.weights();
       assertThat(w.lmWeight()).isEqualTo(in.start().lmWeight());
@@ -101,7 +102,7 @@ class TunerTest {
 
   @Test
   void crossValidationReportsHeldOutErrorsOfEveryMethod() {
-    TuneResult r = Tuner.tune(input(4, 50), fast(), TuneProgress.NONE, () -> false);
+    TuneResult r = Tuner.tune(input(4, 50), fast().build(), TuneProgress.NONE, () -> false);
     assertThat(r.folds()).isEqualTo(3);
     assertThat(r.perMethod()).hasSize(4);
     for (MethodFigures f : r.perMethod()) assertThat(f.cvErrors()).isNotNegative();
@@ -110,13 +111,13 @@ class TunerTest {
 
   @Test
   void theKeptMethodHasTheFewestCrossValidatedErrors() {
-    TuneResult r = Tuner.tune(input(6, 50), fast(), TuneProgress.NONE, () -> false);
+    TuneResult r = Tuner.tune(input(6, 50), fast().build(), TuneProgress.NONE, () -> false);
     for (MethodFigures f : r.perMethod()) assertThat(r.figures(r.method()).cvErrors()).isLessThanOrEqualTo(f.cvErrors());
   }
 
   @Test
   void withoutFoldsTheResultSaysSo() {
-    TuneResult r = Tuner.tune(input(7, 20), fast().withFolds(0).withMethods(Set.of(RescoreMethod.NBEST)), TuneProgress.NONE, () -> false);
+    TuneResult r = Tuner.tune(input(7, 20), fast().folds(0).methods(Set.of(RescoreMethod.NBEST)).build(), TuneProgress.NONE, () -> false);
     assertThat(r.cvErrorRate()).isNaN();
     assertThat(r.warnings()).anyMatch(w -> w.contains("cross-validation is off"));
   }
@@ -124,20 +125,20 @@ class TunerTest {
   @Test
   void progressNeverGoesBackAndEndsAtOne() {
     List<Double> seen = new ArrayList<>();
-    Tuner.tune(input(8, 30), fast(), (f, m) -> seen.add(f), () -> false);
+    Tuner.tune(input(8, 30), fast().build(), (f, m) -> seen.add(f), () -> false);
     assertThat(seen).isSorted().last().isEqualTo(1.0);
   }
 
   @Test
   void cancellingStopsTheRun() {
     AtomicInteger polls = new AtomicInteger();
-    assertThatThrownBy(() -> Tuner.tune(input(9, 40), fast(), TuneProgress.NONE, () -> polls.incrementAndGet() > 5))
+    assertThatThrownBy(() -> Tuner.tune(input(9, 40), fast().build(), TuneProgress.NONE, () -> polls.incrementAndGet() > 5))
         .isInstanceOf(CancellationException.class);
   }
 
   @Test
   void anUnknownWeightNameIsAUserError() {
-    assertThatThrownBy(() -> Tuner.tune(input(10, 10), fast().withTune(Set.of("lm-weight")), TuneProgress.NONE, () -> false))
+    assertThatThrownBy(() -> Tuner.tune(input(10, 10), fast().tune(Set.of("lm-weight")).build(), TuneProgress.NONE, () -> false))
         .isInstanceOf(InputException.class).hasMessageContaining("lm-weight").hasMessageContaining(WeightNames.LM);
   }
 }

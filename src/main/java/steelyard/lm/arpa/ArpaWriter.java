@@ -41,6 +41,12 @@ public final class ArpaWriter {
     });
   }
 
+  /** Writes {@code model} as ARPA text to {@code file}, where {@code -} is {@code stdout} (see {@link AtomicOutput#writeText(Path, Writer, AtomicOutput.WriterBody)}). */
+  public static void write(BackoffModel model, Path file, Writer stdout) {
+    checkTokens(model, file);
+    AtomicOutput.writeText(file, stdout, w -> write(model, w));
+  }
+
   /** Writes the ARPA text of {@code model} to {@code w} (not closed, not flushed). */
   public static void write(BackoffModel model, Writer w) throws IOException {
     StringBuilder sb = new StringBuilder(256);

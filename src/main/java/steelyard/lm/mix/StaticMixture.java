@@ -1,10 +1,13 @@
 package steelyard.lm.mix;
 
+import java.nio.file.Path;
 import java.util.List;
+import steelyard.io.InputException;
 import steelyard.lm.BackoffModel;
 import steelyard.lm.BackoffRenormaliser;
 import steelyard.lm.LanguageModel;
 import steelyard.lm.MixtureModel;
+import steelyard.text.Unit;
 
 /**
  * Writes a linear mixture as one back-off model by the standard static approximation: the union of the
@@ -24,10 +27,11 @@ public final class StaticMixture {
     for (int id = 0; id < mixture.vocabularySize(); id++) b.tokenId(mixture.token(id));
     for (String line : first.metadata()) b.metadata(line);
     b.metadata("steelyard.mixture.weights=" + weightsText(mixture.weights()));
+    double[] weights = mixture.weights();
     for (int k = 1; k <= mixture.order(); k++) {
       for (int c = 0; c < comps.size(); c++) {
         BackoffModel m = asBackoff(comps.get(c));
-        if (k > m.order()) continue;
+        if (k > m.order() || weights[c] == 0) continue;
         int[] ids = new int[k];
         for (int i = 0; i < m.entryCount(k); i++) {
           if (Double.isNaN(m.log10Prob(k, i))) continue;
@@ -42,7 +46,10 @@ public final class StaticMixture {
     return BackoffRenormaliser.renormalise(b.build());
   }
 
-  /** log10 of Σᵢ λᵢPᵢ(w | h) for an n-gram given in the mixture's ids (context first, word last). */
+  /**
+   * log10 of Σᵢ λᵢPᵢ(w | h) for an n-gram given in the mixture's ids (context first, word last); a component
+   * that does not know w adds nothing, as in {@link MixtureModel}.
+   */
   static double mixtureLog10(MixtureModel mixture, int[] unionNgram) {
     List<LanguageModel> comps = mixture.components();
     double[] w = mixture.weights();
@@ -52,11 +59,39 @@ public final class StaticMixture {
       if (w[c] == 0) continue;
       BackoffModel m = asBackoff(comps.get(c));
       int start = Math.max(0, k - m.order());
+      String word = mixture.token(unionNgram[k - 1]);
+      int wid = m.wordId(word);
+      if (!m.token(wid).equals(word)) continue; // outside this component's vocabulary: probability 0 there
       int[] ctx = new int[k - 1 - start];
       for (int j = start; j < k - 1; j++) ctx[j - start] = m.wordId(mixture.token(unionNgram[j]));
-      p += w[c] * Math.pow(10, m.log10Prob(ctx, m.wordId(mixture.token(unionNgram[k - 1]))));
+      p += w[c] * Math.pow(10, m.log10Prob(ctx, wid));
     }
     return Math.log10(p);
+  }
+
+  /**
+   * Refuses components of different units (words mixed with characters would interpolate unrelated token
+   * streams); returns a warning when their recorded normalisations differ, else null.
+   */
+  public static String checkCompatible(List<Path> files, List<? extends LanguageModel> models) {
+    LanguageModel first = models.get(0);
+    for (int i = 1; i < models.size(); i++) {
+      LanguageModel m = models.get(i);
+      if (m.unit() != first.unit()) {
+        throw InputException.inFile(files.get(i), "is a " + label(m.unit()) + " model but " + files.get(0) + " is a "
+            + label(first.unit()) + " model", "models of one unit (all word or all char) to mix");
+      }
+    }
+    for (int i = 1; i < models.size(); i++) {
+      if (!models.get(i).normalisation().equals(first.normalisation()))
+        return files.get(i) + " was trained with other normalisation options than " + files.get(0)
+            + "; the held-out text is normalised as the first model's";
+    }
+    return null;
+  }
+
+  private static String label(Unit u) {
+    return u.name().toLowerCase(java.util.Locale.ROOT);
   }
 
   private static BackoffModel asBackoff(LanguageModel m) {

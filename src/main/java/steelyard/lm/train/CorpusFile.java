@@ -5,6 +5,7 @@ import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.nio.file.Path;
 import java.util.Objects;
+import java.util.function.Consumer;
 import steelyard.io.InputException;
 import steelyard.io.InputFiles;
 import steelyard.text.Normaliser;
@@ -19,11 +20,19 @@ public final class CorpusFile implements SentenceSource {
   private final Path file;
   private final Normaliser normaliser;
   private final Unit unit;
+  private final Consumer<String> warnings;
+  private boolean warned;
 
   public CorpusFile(Path file, Normaliser normaliser, Unit unit) {
+    this(file, normaliser, unit, w -> { });
+  }
+
+  /** A corpus whose first line, when it looks like a CSV header, gives one warning to {@code warnings}. */
+  public CorpusFile(Path file, Normaliser normaliser, Unit unit, Consumer<String> warnings) {
     this.file = Objects.requireNonNull(file, "file");
     this.normaliser = Objects.requireNonNull(normaliser, "normaliser");
     this.unit = Objects.requireNonNull(unit, "unit");
+    this.warnings = Objects.requireNonNull(warnings, "warnings");
   }
 
   @Override
@@ -37,6 +46,11 @@ public final class CorpusFile implements SentenceSource {
     try (BufferedReader in = InputFiles.open(file)) {
       for (String raw = in.readLine(); raw != null; raw = in.readLine()) {
         line++;
+        if (line == 1 && !warned) {
+          String w = InputFiles.csvHeaderWarning(file, raw);
+          if (w != null) warnings.accept(w);
+          warned = true;
+        }
         sink.accept(line, normaliser.tokenList(raw, unit));
       }
     } catch (IOException e) {

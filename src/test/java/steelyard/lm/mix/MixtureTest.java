@@ -69,15 +69,31 @@ class MixtureTest {
     @Test
     void normalisesInEveryContext() {
       List<BackoffModel> comps = List.of(RandomBackoffModels.create(5, 8, 3, 0.6), RandomBackoffModels.create(6, 8, 3, 0.6));
-      MixtureModel mix = new MixtureModel(comps, new double[] {0.3, 0.7});
-      SplittableRandom rnd = new SplittableRandom(5);
+      assertSumsToOneAfterRandomHistories(new MixtureModel(comps, new double[] {0.3, 0.7}), 8, 5);
+    }
+
+    /**
+     * Mathematical invariant, with vocabularies that differ (w0…w7 and w0…w11): scoring a token a component lacks
+     * as that component's {@code <unk>} would give each of w8…w11 the whole {@code <unk>} mass again (sum above 1).
+     */
+    @Test
+    void normalisesInEveryContextWhenTheVocabulariesDiffer() {
+      List<BackoffModel> comps = List.of(RandomBackoffModels.create(15, 8, 3, 0.6), RandomBackoffModels.create(16, 12, 2, 0.6));
+      MixtureModel mix = new MixtureModel(comps, new double[] {0.6, 0.4});
+      assertThat(mix.vocabularySize()).isEqualTo(3 + 12);
+      assertSumsToOneAfterRandomHistories(mix, 12, 15);
+    }
+
+    /** Σ_w P(w | h) = 1 over the mixture's vocabulary (without {@code <s>}) after 20 random histories of words w0… */
+    private void assertSumsToOneAfterRandomHistories(MixtureModel mix, int words, long seed) {
+      SplittableRandom rnd = new SplittableRandom(seed);
       LmState s = mix.newState(), t = mix.newState();
       for (int trial = 0; trial < 20; trial++) {
         mix.beginSentence(s);
-        for (int j = rnd.nextInt(3); j > 0; j--) mix.score(s, mix.wordId("w" + rnd.nextInt(8)), s);
+        for (int j = rnd.nextInt(3); j > 0; j--) mix.score(s, mix.wordId("w" + rnd.nextInt(words)), s);
         double sum = 0;
         for (int w = 0; w < mix.vocabularySize(); w++) if (w != mix.sentenceStartId()) sum += Math.exp(mix.score(s, w, t));
-        assertThat(sum).isCloseTo(1.0, within(1e-9));
+        assertThat(sum).as("seed %d trial %d", seed, trial).isCloseTo(1.0, within(1e-9));
       }
     }
 
@@ -92,6 +108,32 @@ class MixtureTest {
 
   @Nested
   class StaticApproximation {
+    /**
+     * Weights 1, 0 must give the first model back: the same vocabulary (the second model's extra words stay
+     * out of vocabulary, as for the first model alone) and the same held-out perplexity. Before the fix the
+     * written model scored worse than its only weighted component.
+     */
+    @Test
+    void aMixWithWeightsOneAndZeroScoresLikeTheFirstModel() {
+      BackoffModel first = RandomBackoffModels.create(21, 8, 3, 0.6);
+      BackoffModel second = RandomBackoffModels.create(22, 12, 3, 0.6);
+      MixtureModel mix = new MixtureModel(List.of(first, second), new double[] {1, 0});
+      BackoffModel written = StaticMixture.approximate(mix);
+      assertThat(written.vocabularySize()).isEqualTo(first.vocabularySize());
+      SplittableRandom rnd = new SplittableRandom(21);
+      steelyard.lm.eval.Perplexity alone = new steelyard.lm.eval.Perplexity(first);
+      steelyard.lm.eval.Perplexity mixed = new steelyard.lm.eval.Perplexity(written);
+      for (int n = 0; n < 200; n++) {
+        List<String> sentence = new java.util.ArrayList<>();
+        for (int j = rnd.nextInt(8); j >= 0; j--) sentence.add("w" + rnd.nextInt(12));
+        assertThat(written.sentenceLogProb(sentence)).isCloseTo(first.sentenceLogProb(sentence), within(1e-9));
+        alone.add(n, sentence);
+        mixed.add(n, sentence);
+      }
+      assertThat(mixed.result().oov()).isEqualTo(alone.result().oov()).isPositive();
+      assertThat(mixed.result().perplexity()).isCloseTo(alone.result().perplexity(), within(1e-9));
+    }
+
     @ParameterizedTest(name = "[{index}] seed {0}")
     @ValueSource(longs = {9, 10})
     void normalisesAndKeepsExactMixtureProbabilitiesOnListedNgrams(long seed) {
