@@ -80,16 +80,16 @@ public final class HeldOutRun {
       return ReportSections.section(test.section(spec.name(), "test").tuning(tuning.result()).charts(test.charts(threads)).build());
     }
 
+    /** The endings of the files {@link #write} writes after its stem, in the order written. */
+    public static final List<String> FILES = List.of(".weights.json", "-dev.tune.json", "-test.picks.csv", "-test.breakdown.csv",
+        "-test.summary.json");
+
     /**
      * Writes the files a user keeps, each atomically: {@code STEM.weights.json} (the tuned weights file, for
      * {@code rescore --weights}), {@code STEM-dev.tune.json} (the tuning summary, as {@code tune --json}),
      * {@code STEM-test.picks.csv}, {@code STEM-test.breakdown.csv} and {@code STEM-test.summary.json} (as
      * {@code rescore --weights STEM.weights.json --refs} writes them for the test set).
      */
-    /** The endings of the files {@link #write} writes after its stem, in the order written. */
-    public static final List<String> FILES = List.of(".weights.json", "-dev.tune.json", "-test.picks.csv", "-test.breakdown.csv",
-        "-test.summary.json");
-
     public void write(Path dir, String stem, Writer stdout) {
       String weights = WeightsFile.toJson(tuning.weights());
       ObjectNode summary = TuneJson.json(tuning);
