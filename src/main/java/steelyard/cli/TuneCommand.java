@@ -30,6 +30,7 @@ import steelyard.rescore.RescoreSession;
 import steelyard.rescore.WeightsFile;
 import steelyard.tune.TuneJob;
 import steelyard.tune.TuneSettings;
+import steelyard.tune.WeightNames;
 
 /**
  * {@code steelyard tune}: chooses the weights (and, unless restricted, the method) with the fewest errors on a dev
@@ -61,7 +62,7 @@ public final class TuneCommand implements Callable<Integer> {
   List<RescoreMethod> methods = new ArrayList<>();
 
   @Option(names = "--tune", paramLabel = "NAMES", split = ",",
-      description = "Weights that move, comma-separated: feature columns, lm_weight, oov_weight, length_weight, posterior_scale, "
+      description = "Weights that move, comma-separated: feature columns, lm_weight, oov_weight, length_weight, posterior_sharpness, "
           + "system:NAME, lattice_lm_weight, lattice_length_weight. Default: every weight that can change a pick except the "
           + "first feature's (it sets the scale).")
   List<String> tune;
@@ -118,7 +119,10 @@ public final class TuneCommand implements Callable<Integer> {
       throw InputException.option("--folds", "is " + folds, "0 (no cross-validation) or 2 or more folds");
     TuneSettings s = TuneSettings.defaults().withMethods(methods.isEmpty() ? EnumSet.noneOf(RescoreMethod.class) : EnumSet.copyOf(methods))
         .withFolds(folds).withSeed(run.seed).withThreads(run.effectiveThreads()).withSurface(surface != null);
-    return tune == null ? s : s.withTune(new LinkedHashSet<>(tune));
+    if (tune == null) return s;
+    LinkedHashSet<String> names = new LinkedHashSet<>();
+    for (String n : tune) names.add(WeightNames.canonical(n));
+    return s.withTune(names);
   }
 
   /** Renders every output first, then writes each atomically: a failure while rendering writes nothing. */

@@ -59,7 +59,7 @@ public final class DemoRun {
   public record Result(List<Part> parts, List<HeldOutRun.Result> runs, Path outDir, Path report) {}
 
   /** Weights the dockets tune (see the class comment). */
-  static final Set<String> DOCKET_WEIGHTS = Set.of(WeightNames.POSTERIOR_SCALE, WeightNames.LATTICE_LM, WeightNames.LATTICE_LENGTH);
+  static final Set<String> DOCKET_WEIGHTS = Set.of(WeightNames.POSTERIOR_SHARPNESS, WeightNames.LATTICE_LM, WeightNames.LATTICE_LENGTH);
 
   /**
    * The two bundled data sets under {@code root} ({@code sample-hypotheses/}, {@code models/}); an

@@ -3,13 +3,14 @@ package steelyard.gui;
 import java.nio.file.Path;
 import javax.swing.JFileChooser;
 import javax.swing.filechooser.FileNameExtensionFilter;
-import steelyard.audit.AuditReport;
 import steelyard.gui.model.Choices;
-import steelyard.gui.model.Sweeps;
 import steelyard.gui.model.WindowReport;
 import steelyard.gui.model.Workspace;
+import steelyard.report.AuditRun;
+import steelyard.report.SectionInput;
 import steelyard.report.html.HtmlReport;
 import steelyard.rescore.RescoreWeights;
+import steelyard.tune.TuneSettings;
 
 /**
  * File ▸ Export HTML report: the current choice's figures, charts and overrule audit as one self-contained
@@ -31,21 +32,19 @@ final class ReportExport {
     export(w, target);
   }
 
-  /** Computes the charts' series and the audit of the current choice and writes the page to {@code target}. */
+  /** Audits the current choice, computes the charts' series and writes the page to {@code target}. */
   static void export(SteelyardWindow w, Path target) {
     Workspace ws = w.workspace();
     Choices c = w.choices();
     RescoreWeights at = c.weights();
-    double top = Math.max(40, Math.ceil(2 * at.lmWeight() / 10) * 10);
     w.tasks.submit("report", "Writing the HTML report", p -> {
-      p.report(0.05, "error along λ");
-      Sweeps.LambdaSweep sweep = Sweeps.lambda(ws, at, 0, top);
-      p.report(0.2, "error over λ × μ");
-      Sweeps.Surface surface = Sweeps.surface(ws, at, Sweeps.grid(0, top, ChartRefresher.SURFACE_POINTS),
-          Sweeps.grid(-16, 16, ChartRefresher.SURFACE_POINTS));
+      p.report(0.05, "auditing the choice");
+      AuditRun.Result run = ws.auditRun(at, c.method(), TuneSettings.DEFAULT_SEED);
       p.checkCancelled();
-      AuditReport audit = ws.audit(at, c.method(), p);
-      HtmlReport.write(WindowReport.model(ws, c, sweep, surface, audit), target);
+      p.report(0.5, "the charts' series");
+      SectionInput.ChartSeries charts = run.charts(Runtime.getRuntime().availableProcessors());
+      p.checkCancelled();
+      HtmlReport.write(WindowReport.model(ws, run, charts), target);
       return target;
     }, (o, path, e) -> {
       if (o == Tasks.Outcome.FAILED) ErrorDialogs.show(w, "Cannot write the report", e);

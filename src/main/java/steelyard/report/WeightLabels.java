@@ -16,7 +16,7 @@ final class WeightLabels {
       case WeightNames.LM -> "LM weight λ";
       case WeightNames.OOV -> "OOV weight ω";
       case WeightNames.LENGTH -> "length weight μ";
-      case WeightNames.POSTERIOR_SCALE -> "posterior sharpness α";
+      case WeightNames.POSTERIOR_SHARPNESS -> "posterior sharpness α";
       case WeightNames.LATTICE_LM -> "network LM weight λ′";
       case WeightNames.LATTICE_LENGTH -> "network length weight μ′";
       default -> name.startsWith(WeightNames.SYSTEM_PREFIX)
@@ -33,7 +33,7 @@ final class WeightLabels {
     List<String> names = new ArrayList<>(w.features().keySet());
     names.addAll(List.of(WeightNames.LM, WeightNames.OOV, WeightNames.LENGTH));
     if (method != RescoreMethod.NBEST) {
-      names.add(WeightNames.POSTERIOR_SCALE);
+      names.add(WeightNames.POSTERIOR_SHARPNESS);
       for (String system : w.systemWeights().keySet()) names.add(WeightNames.system(system));
     }
     if (method == RescoreMethod.LATTICE) names.addAll(List.of(WeightNames.LATTICE_LM, WeightNames.LATTICE_LENGTH));

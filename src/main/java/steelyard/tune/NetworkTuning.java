@@ -109,8 +109,8 @@ final class NetworkTuning {
     for (int i = 0; i < sample.length; i++) onSample[i] = startErrors[sample[i]];
     best = fixed(data.input.start(), onSample);
     tried.put("start", best);
-    ScaleGrid grid = ScaleGrid.of(data.nbest, nbestVector, settings.range(WeightNames.POSTERIOR_SCALE), nbest.posteriorScale());
-    boolean scale = settings.moves(WeightNames.POSTERIOR_SCALE, true);
+    ScaleGrid grid = ScaleGrid.of(data.nbest, nbestVector, settings.range(WeightNames.POSTERIOR_SHARPNESS), nbest.posteriorScale());
+    boolean scale = settings.moves(WeightNames.POSTERIOR_SHARPNESS, true);
     for (double a : scale ? grid.coarse() : new double[] {nbest.posteriorScale()}) evaluate(nbest, a, nbest.systemWeights());
     if (scale) for (double f : grid.refinements()) refine(nbest, f);
     if (systems(nbest) && scale && grid.refinements().length > 0) refine(nbest, grid.refinements()[grid.refinements().length - 1]);
@@ -143,7 +143,7 @@ final class NetworkTuning {
 
   private void refine(RescoreWeights nbest, double factor) {
     double a = best.weights().posteriorScale();
-    WeightRange r = settings.range(WeightNames.POSTERIOR_SCALE);
+    WeightRange r = settings.range(WeightNames.POSTERIOR_SHARPNESS);
     evaluate(nbest, r.clip(ScaleGrid.round3(a / factor)), best.weights().systemWeights());
     evaluate(nbest, r.clip(ScaleGrid.round3(a * factor)), best.weights().systemWeights());
   }

@@ -52,7 +52,7 @@ public final class Tuner {
   /** Every weight the run could move, in the order {@code --tune} lists them in its help. */
   public static List<String> tunableNames(TuneInput input) {
     List<String> names = new ArrayList<>(NbestTuning.columnNames(input.featureNames()));
-    names.add(WeightNames.POSTERIOR_SCALE);
+    names.add(WeightNames.POSTERIOR_SHARPNESS);
     for (String s : NetworkData.systems(input)) names.add(WeightNames.system(s));
     names.add(WeightNames.LATTICE_LM);
     names.add(WeightNames.LATTICE_LENGTH);

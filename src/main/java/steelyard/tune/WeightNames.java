@@ -14,7 +14,9 @@ public final class WeightNames {
   /** μ, added per token. */
   public static final String LENGTH = "length_weight";
   /** α, multiplies totals before the softmax of the posteriors. */
-  public static final String POSTERIOR_SCALE = "posterior_scale";
+  public static final String POSTERIOR_SHARPNESS = "posterior_sharpness";
+  /** The release 0.1 spelling of {@link #POSTERIOR_SHARPNESS}, still accepted by {@link #canonical}. */
+  static final String POSTERIOR_SHARPNESS_OLD = "posterior_scale";
   /** λ′, LM weight of the confusion-network search. */
   public static final String LATTICE_LM = "lattice_lm_weight";
   /** μ′, per-token weight of the confusion-network search. */
@@ -44,17 +46,22 @@ public final class WeightNames {
       case LM -> w.lmWeight();
       case OOV -> w.oovWeight();
       case LENGTH -> w.lengthWeight();
-      case POSTERIOR_SCALE -> w.posteriorScale();
+      case POSTERIOR_SHARPNESS -> w.posteriorScale();
       case LATTICE_LM -> w.latticeLmWeight();
       case LATTICE_LENGTH -> w.latticeLengthWeight();
       default -> name.startsWith(SYSTEM_PREFIX) ? w.systemWeight(name.substring(SYSTEM_PREFIX.length())) : w.features().getOrDefault(name, 1.0);
     };
   }
 
+  /** {@code name} with an old spelling replaced by the current one ({@code posterior_scale} → {@link #POSTERIOR_SHARPNESS}). */
+  public static String canonical(String name) {
+    return POSTERIOR_SHARPNESS_OLD.equals(name) ? POSTERIOR_SHARPNESS : name;
+  }
+
   /** Whether {@code name} is one of the fixed names or a system weight (not a feature). */
   public static boolean isReserved(String name) {
-    return name.equals(LM) || name.equals(OOV) || name.equals(LENGTH) || name.equals(POSTERIOR_SCALE)
-        || name.equals(LATTICE_LM) || name.equals(LATTICE_LENGTH) || name.startsWith(SYSTEM_PREFIX);
+    return name.equals(LM) || name.equals(OOV) || name.equals(LENGTH) || name.equals(POSTERIOR_SHARPNESS)
+        || name.equals(POSTERIOR_SHARPNESS_OLD) || name.equals(LATTICE_LM) || name.equals(LATTICE_LENGTH) || name.startsWith(SYSTEM_PREFIX);
   }
 
   /**
@@ -66,7 +73,7 @@ public final class WeightNames {
    */
   public static WeightRange defaultRange(String name) {
     if (name.equals(LM) || name.equals(LATTICE_LM)) return WeightRange.NON_NEGATIVE;
-    if (name.equals(POSTERIOR_SCALE)) return new WeightRange(MIN_SCALE, MAX_SCALE);
+    if (name.equals(POSTERIOR_SHARPNESS)) return new WeightRange(MIN_SCALE, MAX_SCALE);
     if (name.startsWith(SYSTEM_PREFIX)) return new WeightRange(MIN_SYSTEM, MAX_SYSTEM);
     return WeightRange.ANY;
   }

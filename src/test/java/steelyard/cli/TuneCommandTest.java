@@ -182,7 +182,7 @@ class TuneCommandTest {
       Path refs = firstUtterances(Path.of(REFS), dir.resolve("small.refs.csv"));
       List<String> args = new ArrayList<>(List.of("tune", "--hyps", hyps.toString(), "--refs", refs.toString()));
       args.addAll(List.of(DATA));
-      args.addAll(List.of("--method", "lattice", "--tune", "posterior_scale,lattice_lm_weight,lattice_length_weight", "--folds", "0",
+      args.addAll(List.of("--method", "lattice", "--tune", "posterior_sharpness,lattice_lm_weight,lattice_length_weight", "--folds", "0",
           "--out", dir.resolve("small.weights.json").toString(), "--json", dir.resolve("small.json").toString()));
       ScoreCommandTest.Result t = ScoreCommandTest.run(args.toArray(String[]::new));
       assertThat(t.code()).as(t.err()).isZero();

@@ -34,13 +34,7 @@ import steelyard.cli.Main;
  */
 @ExtendWith(XvfbDisplay.class)
 class WindowTest {
-  /** The N-best λ of the demo weights file, with which the window opens. */
-  static double fileLambda() throws IOException {
-    return new com.fasterxml.jackson.databind.ObjectMapper().readTree(ROOT.resolve("models/voice-demo.weights.json").toFile())
-        .path("methods").path("nbest").path("lm_weight").asDouble();
-  }
-
-  /** The λ the slider is moved to (the demo weights file has a larger one). */
+  /** The λ the slider is moved to (away from the demo weights file's N-best λ, {@link #demoLambda}). */
   static final double LAMBDA = 4;
   static final Path ROOT = Path.of("").toAbsolutePath();
   static final Path SHOTS = ROOT.resolve("target/screenshots");
@@ -63,10 +57,10 @@ class WindowTest {
 
   @Test
   void theWindowShowsWhatTheCommandLineComputes(XvfbDisplay.Display display) throws Exception {
-    double opened = fileLambda();
-    Map<String, String> at16 = picks(opened);
+    double start = demoLambda();
+    Map<String, String> atStart = picks(start);
     Map<String, String> atLambda = picks(LAMBDA);
-    String utt = at16.keySet().stream().filter(u -> !at16.get(u).equals(atLambda.get(u))).findFirst().orElseThrow();
+    String utt = atStart.keySet().stream().filter(u -> !atStart.get(u).equals(atLambda.get(u))).findFirst().orElseThrow();
     Properties r = scenario(display, utt);
 
     System.out.println("window scenario: " + r);
@@ -75,7 +69,7 @@ class WindowTest {
     assertThat(r.getProperty("edt.violations")).as(r.getProperty("edt.first")).isEqualTo("0");
     assertThat(r.getProperty("after.lambda")).isEqualTo(Double.toString(LAMBDA));
 
-    JsonNode before = summary(run(opened, "nbest", 1));
+    JsonNode before = summary(run(start, "nbest", 1));
     JsonNode after = summary(run(LAMBDA, "nbest", 1));
     assertThat(r.getProperty("before.error")).isEqualTo("WER " + percent(before.get("error_rate").asDouble()));
     assertThat(r.getProperty("after.error")).isEqualTo("WER " + percent(after.get("error_rate").asDouble()));
@@ -83,7 +77,7 @@ class WindowTest {
     assertThat(r.getProperty("before.counts")).startsWith("changed " + before.get("changed").asInt() + " ");
     assertThat(r.getProperty("after.counts")).startsWith("changed " + after.get("changed").asInt() + " ");
 
-    assertThat(r.getProperty("before.pick.rank") + "," + r.getProperty("before.pick.text")).isEqualTo(at16.get(utt));
+    assertThat(r.getProperty("before.pick.rank") + "," + r.getProperty("before.pick.text")).isEqualTo(atStart.get(utt));
     assertThat(r.getProperty("after.pick.rank") + "," + r.getProperty("after.pick.text")).isEqualTo(atLambda.get(utt));
     assertThat(r.getProperty("after.pick.label")).isEqualTo("Pick: " + r.getProperty("after.pick.text"));
 
@@ -182,6 +176,12 @@ class WindowTest {
 
   private static JsonNode summary(Path run) throws IOException {
     return new com.fasterxml.jackson.databind.ObjectMapper().readTree(run.resolve("summary.json").toFile());
+  }
+
+  /** The N-best λ of the demo weights file, the λ the window opens the demo with. */
+  private static double demoLambda() throws IOException {
+    JsonNode file = new com.fasterxml.jackson.databind.ObjectMapper().readTree(ROOT.resolve("models/voice-demo.weights.json").toFile());
+    return file.get("methods").get("nbest").get("lm_weight").asDouble();
   }
 
   /** The command line's N-best rescore of the demo dev set with a weights file alone. */

@@ -30,6 +30,7 @@ import steelyard.audit.AuditInput;
 import steelyard.audit.AuditReport;
 import steelyard.audit.AuditSettings;
 import steelyard.audit.OverruleAuditor;
+import steelyard.report.AuditRun;
 import steelyard.lm.ModelText;
 import steelyard.rescore.Tokenizer;
 import steelyard.text.Normaliser;
@@ -240,6 +241,16 @@ public final class Workspace {
       if ((u & 31) == 0) progress.report(0.5 + 0.5 * u / n, "auditing the overrules");
     }
     return acc.finish();
+  }
+
+  /**
+   * The audit run of the choice under {@code w} and {@code method} as the {@code audit} command runs it
+   * ({@link AuditRun#of}): every utterance chosen again, scored, audited and summed with the bootstrap interval and
+   * paired test of {@code seed}, on all cores. Token ids are built first under each utterance's lock.
+   */
+  public AuditRun.Result auditRun(RescoreWeights w, RescoreMethod method, long seed) {
+    buildTokenIds();
+    return AuditRun.of(session.withWeights(w, method), set, null, Runtime.getRuntime().availableProcessors(), seed);
   }
 
   /** Writes {@code w} as a weights file (with the unit and, for a model file, its identity). */
