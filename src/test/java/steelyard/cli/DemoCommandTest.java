@@ -63,6 +63,15 @@ class DemoCommandTest {
   }
 
   @Test
+  void theReadmeShowsWhatTheDemoPrints() throws Exception {
+    String readme = Files.readString(Path.of("README.md"));
+    for (String line : stdout.toString(StandardCharsets.UTF_8).split("\n")) {
+      if (line.startsWith("Report: ") || line.startsWith("Also in ")) continue; // name the output folder
+      assertThat(readme).as("README.md shows the demo's line").contains(line);
+    }
+  }
+
+  @Test
   void everyTestUtteranceGetsOnePick() throws Exception {
     assertThat(Files.readAllLines(out.resolve("voice-test.picks.csv"))).hasSize(301);
     assertThat(json("voice-test.summary.json").get("utterances").asInt()).isEqualTo(300);
