@@ -15,7 +15,7 @@ import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
 
-/** The command with a model file and with the confusion-network methods (skipped until those are built). */
+/** The command with a model file and with the confusion-network methods. */
 class RescoreModelAndNetworkTest {
   @TempDir Path dir;
   private Path hyps;
